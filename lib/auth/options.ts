@@ -1,0 +1,61 @@
+import 'server-only';
+import type { NextAuthOptions } from 'next-auth';
+import CredentialsProvider from 'next-auth/providers/credentials';
+import EmailProvider from 'next-auth/providers/email';
+import { env } from '@/lib/env';
+import { recordAudit } from '@/lib/audit/record-audit';
+import { knexAdapter } from './repo-adapter';
+import { signInWithPassword } from './sign-in-with-password';
+import { sendSignInLink } from './send-sign-in-link';
+
+function clientIp(headers: Record<string, unknown> | undefined): string {
+  const forwarded = headers?.['x-forwarded-for'];
+  return (typeof forwarded === 'string' ? forwarded.split(',')[0]?.trim() : '') || 'unknown';
+}
+
+export function authOptions(): NextAuthOptions {
+  const { NEXTAUTH_SECRET, MAIL_FROM } = env();
+  return {
+    secret: NEXTAUTH_SECRET,
+    adapter: knexAdapter(),
+    session: { strategy: 'jwt', maxAge: 12 * 60 * 60 },
+    pages: { signIn: '/sign-in', verifyRequest: '/sign-in/check-email', error: '/sign-in' },
+    providers: [
+      CredentialsProvider({
+        id: 'credentials',
+        name: 'E-mail and password',
+        credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
+        authorize: async (credentials, req) =>
+          signInWithPassword({ email: credentials?.email ?? '', password: credentials?.password ?? '', ip: clientIp(req.headers) }),
+      }),
+      EmailProvider({
+        from: MAIL_FROM,
+        maxAge: 15 * 60,
+        // next-auth's default sender would open its own connection; ours goes through lib/mail.
+        server: 'smtp://unused.invalid',
+        sendVerificationRequest: ({ identifier, url }) => sendSignInLink(identifier, url),
+      }),
+    ],
+    callbacks: {
+      async jwt({ token, user }) {
+        if (user) {
+          token.uid = user.id;
+          token.siteRole = user.siteRole ?? 'user';
+        }
+        return token;
+      },
+      async session({ session, token }) {
+        session.user = { id: token.uid ?? '', email: token.email ?? '', name: token.name ?? '', siteRole: token.siteRole ?? 'user' };
+        return session;
+      },
+    },
+    events: {
+      async signIn({ user, account }) {
+        await recordAudit({ action: 'user.sign_in', actorKind: 'user', actorUserId: user.id, targetType: 'user', targetId: user.id, details: { method: account?.provider ?? 'unknown' } });
+      },
+      async signOut({ token }) {
+        if (token?.uid) await recordAudit({ action: 'user.sign_out', actorKind: 'user', actorUserId: token.uid, targetType: 'user', targetId: token.uid });
+      },
+    },
+  };
+}

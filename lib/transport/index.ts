@@ -1,0 +1,2 @@
+// Public API of the pure transport core (no DB, Next or React).
+export * from './units';

@@ -1,0 +1,10 @@
+export type { Dimension } from './dimensions';
+export { SI_UCUM, DIMENSIONS } from './dimensions';
+export type { UnitInfo } from './unit-info';
+export { unitInfo, CATALOGUE_UCUM } from './unit-info';
+export { toSi, fromSi, convertValue, UnitConversionError } from './convert';
+export { OERSTED_TO_TESLA_CONVENTION, fieldToTesla, teslaToField } from './field';
+export { NOISE_DENSITY_DISPLAY_UNIT, noiseDensityDisplay, noiseDensityToPsd } from './noise-density';
+export type { UcumFromText, UcumFromTextHint } from './from-text';
+export { ucumFromText, isAmplitudeDensityText } from './from-text';
+export { labelFromUcum } from './label';
