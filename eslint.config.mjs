@@ -19,10 +19,10 @@ export default [
     rules: { 'no-restricted-imports': ['error', knexOnlyInDataLayer] },
   },
   {
-    files: ['lib/transport/**'],
+    files: ['lib/transport/**', 'lib/access/**'],
     rules: {
       'no-restricted-imports': ['error', {
-        patterns: [{ group: ['next', 'next/*', 'react', 'react-dom', 'knex', '@/db/*', '@/lib/db', 'server-only'], message: 'lib/transport is pure: no DB, Next or React.' }],
+        patterns: [{ group: ['next', 'next/*', 'react', 'react-dom', 'knex', '@/db/*', '@/lib/db', 'server-only'], message: 'lib/transport and lib/access are pure: no DB, Next or React.' }],
       }],
     },
   },

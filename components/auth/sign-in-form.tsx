@@ -1,5 +1,6 @@
 'use client';
 
+import Link from 'next/link';
 import { signIn } from 'next-auth/react';
 import { useRouter } from 'next/navigation';
 import { useState, type FormEvent } from 'react';
@@ -50,7 +51,7 @@ export function SignInForm({ callbackUrl, initialError }: SignInFormProps) {
         <TextField label="E-mail address" name="email" type="email" autoComplete="email" required />
         <TextField label="Password" name="password" type="password" autoComplete="current-password" required />
         <Button type="submit" disabled={busy}>{busy ? 'Signing in…' : 'Sign in'}</Button>
-        <a href="/reset-password" className="text-sm text-copper-700 underline">Forgot your password?</a>
+        <Link href="/reset-password" className="text-sm text-copper-700 underline">Forgot your password?</Link>
       </form>
       <form onSubmit={onLink} className="flex flex-col gap-4 rounded-lg border border-slate-200 bg-white p-6" aria-labelledby="link-heading">
         <h2 id="link-heading" className="font-semibold">With a link by e-mail</h2>
