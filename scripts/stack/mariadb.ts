@@ -23,6 +23,7 @@ function socketPath(layout: DataLayout): string {
 export async function startMariaDb(opts: MariaDbOptions): Promise<Service> {
   const { layout } = opts;
   const name = 'mariadb';
+  if (!/^\w+$/.test(opts.database)) throw new ServiceStartError(name, `unsafe database name ${JSON.stringify(opts.database)}`);
   const logFile = path.join(layout.logs, 'mariadb.log');
   const bins = {
     server: requireExecutable('mariadbd'),
@@ -70,6 +71,7 @@ export async function startMariaDb(opts: MariaDbOptions): Promise<Service> {
     pid: child.pid ?? -1,
     logFile,
     alive: () => childAlive(child),
+    exited: exitOf(child),
     async stop() {
       if (!childAlive(child)) return;
       try {

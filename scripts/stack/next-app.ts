@@ -7,7 +7,7 @@ import { runForeground, type RunResult } from './foreground';
 import type { Stack } from './index';
 import { projectRoot } from './layout';
 import { removePid, writePid } from './pidfiles';
-import { type Service, ServiceStartError, childAlive, httpResponds, spawnService, stopChild, waitUntilReady } from './proc';
+import { type Service, exitOf, ServiceStartError, childAlive, httpResponds, spawnService, stopChild, waitUntilReady } from './proc';
 
 const NEXT_BIN = path.join(projectRoot, 'node_modules', 'next', 'dist', 'bin', 'next');
 const STAMP = path.join(projectRoot, '.next', 'ohmstead-build.json');
@@ -83,6 +83,7 @@ export async function startApp(stack: Stack, opts: { tee?: NodeJS.WritableStream
     pid: child.pid ?? -1,
     logFile,
     alive: () => childAlive(child),
+    exited: exitOf(child),
     async stop() {
       await stopChild(child, { graceMs: 10_000 });
       removePid(stack.layout, 'app');

@@ -2,7 +2,7 @@
 import path from 'node:path';
 import { type DataLayout, projectRoot } from './layout';
 import { writePid, removePid } from './pidfiles';
-import { type Service, childAlive, spawnService, stopChild, waitForReadyMessage } from './proc';
+import { type Service, exitOf, childAlive, spawnService, stopChild, waitForReadyMessage } from './proc';
 
 export type NodeServiceOptions = {
   layout: DataLayout;
@@ -27,6 +27,7 @@ export async function startNodeService(opts: NodeServiceOptions): Promise<Servic
     pid: child.pid ?? -1,
     logFile,
     alive: () => childAlive(child),
+    exited: exitOf(child),
     async stop() {
       await stopChild(child, { graceMs: 8_000 });
       removePid(opts.layout, opts.name);

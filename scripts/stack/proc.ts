@@ -10,6 +10,8 @@ export type Service = {
   pid: number;
   logFile: string;
   alive(): boolean;
+  /** Settles when the process has exited, for whatever reason. */
+  exited: Promise<ExitInfo>;
   stop(): Promise<void>;
 };
 

@@ -51,8 +51,8 @@ describe('sign-up', () => {
 
   it('refuses a second account for the same address', async () => {
     const email = uniqueEmail();
-    await registerUser({ name: 'A', email, password: 'a long enough passphrase' });
-    const error = await expectFieldError(registerUser({ name: 'B', email: email.toUpperCase(), password: 'another long passphrase' }), 'email');
+    await registerUser({ name: 'Arlo Venn', email, password: 'a long enough passphrase' });
+    const error = await expectFieldError(registerUser({ name: 'Bea Venn', email: email.toUpperCase(), password: 'another long passphrase' }), 'email');
     expect(error.code).toBe('conflict');
   });
 });
