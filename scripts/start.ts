@@ -78,6 +78,7 @@ async function main(): Promise<void> {
 }
 
 main().catch((error: unknown) => {
+  if (interruptedBy()) return void finish(0);
   if (error instanceof StackStartError || error instanceof ConfigError) console.error(error.message);
   else if (error instanceof ServiceStartError) console.error(describeStartError(error));
   else console.error('npm start failed:', error);

@@ -9,7 +9,7 @@ export type NodeServiceOptions = {
   name: string;
   /** Path relative to the project root. */
   script: string;
-  env: NodeJS.ProcessEnv;
+  env: Record<string, string>;
   timeoutMs?: number;
 };
 

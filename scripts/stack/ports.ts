@@ -22,7 +22,7 @@ export const PORT_SERVICE: Record<PortVariable, string> = {
 export class ConfigError extends Error {}
 
 /** Defaults for the profile, overridden by PORT, DB_PORT, … from the environment. */
-export function resolvePorts(profile: Profile, environment: NodeJS.ProcessEnv = process.env): Ports {
+export function resolvePorts(profile: Profile, environment: Record<string, string | undefined> = process.env): Ports {
   const ports = { ...DEFAULT_PORTS[profile] };
   for (const name of PORT_VARIABLES) {
     const raw = environment[name];

@@ -1,0 +1,17 @@
+export * from './constants';
+export * from './resistivity';
+export * from './van-der-pauw';
+export * from './hall';
+export * from './magnetoresistance';
+export * from './field-symmetry';
+export * from './rrr';
+export * from './current-reversal';
+export * from './lock-in';
+export * from './enbw';
+export * from './johnson-noise';
+export * from './joule-heating';
+export * from './platinum-rtd';
+export * from './bloch-gruneisen';
+export * from './curve-noise';
+export { integrate } from './quadrature';
+export { interpolateLinear, sortedCurve, type Curve } from './interpolate';
