@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { listRecentPublished } from '@/lib/datasets/repo';
 import { listGroups } from '@/lib/groups/repo';
+import { plural } from '@/lib/format/plural';
 
 export const dynamic = 'force-dynamic';
 
@@ -50,7 +51,7 @@ export default async function HomePage() {
               <Link href={`/groups/${g.slug}`} className="block rounded-lg border border-slate-200 bg-white p-4 hover:border-copper-300">
                 <p className="font-medium">{g.name}</p>
                 <p className="text-sm text-slate-600">{g.institution}</p>
-                <p className="mt-2 text-xs text-slate-500">{Number(g.member_count)} members · {Number(g.dataset_count)} datasets</p>
+                <p className="mt-2 text-xs text-slate-500">{plural(Number(g.member_count), 'member')} · {plural(Number(g.dataset_count), 'dataset')}</p>
               </Link>
             </li>
           ))}

@@ -5,8 +5,6 @@ import { UserMenu } from './user-menu';
 
 const NAV = [
   { href: '/search', label: 'Search' },
-  { href: '/compare', label: 'Compare' },
-  { href: '/deposit', label: 'Deposit' },
   { href: '/groups', label: 'Groups' },
 ];
 

@@ -7,8 +7,8 @@ export type PublishedCard = {
 };
 
 /** The newest published versions, for the home page (the search index replaces this for queries). */
-export async function listRecentPublished(limit = 6): Promise<PublishedCard[]> {
-  return db()('dataset_versions as v')
+export async function listRecentPublished(limit = 6, titleContains?: string): Promise<PublishedCard[]> {
+  const q = db()('dataset_versions as v')
     .join('datasets as d', 'd.id', 'v.dataset_id')
     .join('groups as g', 'g.id', 'd.group_id')
     .where('v.state', 'published')
@@ -16,6 +16,8 @@ export async function listRecentPublished(limit = 6): Promise<PublishedCard[]> {
     .limit(limit)
     .select('v.id as version_id', 'd.id as dataset_id', 'v.title', 'v.version_number', 'v.doi', 'v.published_at',
       db().raw("DATE_FORMAT(v.embargo_until, '%Y-%m-%d') as embargo_until"), 'g.name as group_name', 'g.slug as group_slug');
+  if (titleContains) q.whereRaw('v.title LIKE ?', [`%${titleContains.replace(/[\\%_]/g, (c) => `\\${c}`)}%`]);
+  return q;
 }
 
 export async function countDatasetsByState(): Promise<Record<string, number>> {

@@ -58,13 +58,22 @@ export function runningFrom(layout: DataLayout): PidEntry[] {
 /** Refuses a second runner on the same data dir; the first one's services would be clobbered. */
 export function acquireRunnerLock(layout: DataLayout, script: string): void {
   const runner = readPids(layout).find((e) => e.name === 'runner');
-  if (runner && belongsHere(runner)) {
+  if (runner && runner.pid !== process.pid && belongsHere(runner)) {
     throw new ConfigError(
       `Ohmstead is already running from ${rel(layout.dir)} (runner pid ${runner.pid}). Stop it first (Ctrl-C in its terminal, or kill -INT ${runner.pid}).`,
     );
   }
   writePid(layout, 'runner', process.pid, script);
+  if (!lockHolders.has(layout.run)) {
+    lockHolders.add(layout.run);
+    process.once('exit', () => {
+      const mine = readPids(layout).find((e) => e.name === 'runner' && e.pid === process.pid);
+      if (mine) removePid(layout, 'runner');
+    });
+  }
 }
+
+const lockHolders = new Set<string>();
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 

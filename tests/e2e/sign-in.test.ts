@@ -17,8 +17,8 @@ describe('signing in in Chromium', () => {
   it('the demo author signs in and sees their groups with roles', async () => {
     const page = await browser.newPage();
     await page.goto(`${baseUrl}/sign-in`);
-    await page.getByLabel('E-mail address').first().fill(author.email);
-    await page.getByLabel('Password').fill(demo.password);
+    await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
+    await page.getByLabel('Password', { exact: true }).fill(demo.password);
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL(`${baseUrl}/groups`);
     const mine = page.locator('section[aria-labelledby="mine"]');
@@ -31,8 +31,8 @@ describe('signing in in Chromium', () => {
   it('a wrong password shows an error and stays on the sign-in page', async () => {
     const page = await browser.newPage();
     await page.goto(`${baseUrl}/sign-in`);
-    await page.getByLabel('E-mail address').first().fill(author.email);
-    await page.getByLabel('Password').fill('definitely wrong');
+    await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
+    await page.getByLabel('Password', { exact: true }).fill('definitely wrong');
     await page.getByRole('button', { name: 'Sign in' }).click();
     const alert = page.getByRole('alert');
     await alert.waitFor();

@@ -26,7 +26,7 @@ function normalise(text: string): string {
 
 function stripWrapping(text: string): string {
   let s = text.trim();
-  while (/^[([{].*[)\]}]$/.test(s) && !unitInfo(s)) s = s.slice(1, -1).trim(); // keep [degF], [ppm]
+  while (/^\(.*\)$|^\[.*\]$|^\{.*\}$/.test(s) && !(s.startsWith('[') && unitInfo(s))) s = s.slice(1, -1).trim(); // keep [degF], [ppm]
   return s;
 }
 
