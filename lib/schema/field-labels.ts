@@ -31,7 +31,7 @@ export function titlesAlong(root: SchemaNode, segments: readonly string[]): (str
 
 /** Plain label for the field at `segments`: a `.value` takes its parent's title, a `.unit` reads "<parent> unit". */
 export function fieldLabel(root: SchemaNode, segments: readonly string[]): string {
-  if (segments.length === 0) return 'The record';
+  if (segments.length === 0) return 'the dataset record';
   const titles = titlesAlong(root, segments);
   const last = segments[segments.length - 1];
   const parentTitle = titles[titles.length - 2];

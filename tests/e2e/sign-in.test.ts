@@ -34,7 +34,8 @@ describe('signing in in Chromium', () => {
     await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
     await page.getByLabel('Password', { exact: true }).fill('definitely wrong');
     await page.getByRole('button', { name: 'Sign in' }).click();
-    const alert = page.getByRole('alert');
+    // Next.js keeps an empty route-announcer alert in every page; look for ours by its text.
+    const alert = page.getByRole('alert').filter({ hasText: 'E-mail or password is wrong' });
     await alert.waitFor();
     expect(await alert.innerText()).toContain('E-mail or password is wrong');
     expect(new URL(page.url()).pathname).toBe('/sign-in');

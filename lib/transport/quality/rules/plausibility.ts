@@ -16,10 +16,14 @@ const resistivity: QualityRule = (c) => {
   const r = c.resistivityOhmM;
   if (!r) return [];
   const out: QualityFlag[] = [];
-  const warm = c.temperatureK && c.temperatureK.max >= ROOM_T_FROM_K;
-  if (warm && r.min > 0 && r.min < ROOM_T_MIN_RESISTIVITY_OHM_M) {
-    out.push(flag('resistivity-too-low', 'serious', `Resistivity down to ${formatResistivity(r.min)} at temperatures above ${ROOM_T_FROM_K} K is below any normal metal (silver is about 1.6 µΩ·cm at 293 K); check the geometry and its units.`,
-      `ρ_min < ${ROOM_T_MIN_RESISTIVITY_OHM_M} Ω·m while T_max ≥ ${ROOM_T_FROM_K} K`, 'CRC Handbook, "Electrical Resistivity of Pure Metals" (from memory)'));
+  const t = c.temperatureK;
+  // Without paired points: if all data are warm, test ρ_min; if only T_max is warm, ρ_max (ρ rises with T in metals).
+  const allWarm = t !== undefined && t.min >= ROOM_T_FROM_K;
+  const value = allWarm ? r.min : r.max;
+  if (t && t.max >= ROOM_T_FROM_K && value > 0 && value < ROOM_T_MIN_RESISTIVITY_OHM_M) {
+    const what = allWarm ? `Resistivity down to ${formatResistivity(value)} at temperatures from ${sig3(t.min)} K` : `Resistivity of at most ${formatResistivity(value)} even at ${sig3(t.max)} K`;
+    out.push(flag('resistivity-too-low', 'serious', `${what} is below any normal metal (silver is about 1.6 µΩ·cm at 293 K); check the geometry and its units.`,
+      `ρ < ${ROOM_T_MIN_RESISTIVITY_OHM_M} Ω·m above ${ROOM_T_FROM_K} K (ρ_min if T_min ≥ ${ROOM_T_FROM_K} K, else ρ_max)`, 'CRC Handbook, "Electrical Resistivity of Pure Metals" (from memory)'));
   }
   if (r.max > MAX_RESISTIVITY_OHM_M) {
     out.push(flag('resistivity-very-high', 'warning', `Resistivity up to ${formatResistivity(r.max)} is in the range of good insulators; check that current flowed through the sample (open contact, leakage through the wiring or substrate).`,

@@ -26,10 +26,10 @@ describe('digital lock-in demodulation', () => {
   });
 
   it('10.5 periods: truncated to 10 whole periods gives 30°; integrating all gives ≈ 29.91° (Scofield 1994)', () => {
-    const { samples, fs } = waveform(10.5, 100);
+    const { samples, fs } = waveform(10.5, 1000); // fine sampling approaches the continuous-time 29.913°
     const whole = demodulate({ samples, sampleRateHz: fs, referenceHz: 17.77 });
     expect(whole.periods).toBe(10);
-    expect(whole.samplesUsed).toBe(1000);
+    expect(whole.samplesUsed).toBe(10000);
     expect(whole.thetaDeg).toBeCloseTo(30, 10);
     const all = demodulate({ samples, sampleRateHz: fs, referenceHz: 17.77, wholePeriods: false });
     expect(all.thetaDeg).toBeCloseTo(29.91, 2);

@@ -19,7 +19,7 @@ describe('residual resistivity ratio', () => {
     expect(mid.high.value).toBeCloseTo((1.55e-8 + 1.72e-8) / 2, 20);
   });
 
-  it('falls back to 300 K when the data do not reach 273 K… but do reach 300 K only from above', () => {
+  it('uses 300 K when the data cover 300 K but not 273 K', () => {
     const r = residualResistivityRatio([280, 290, 300, 310], [1, 2, 3, 4]);
     expect(r.high.requestedK).toBe(300);
     expect(r.high.extrapolated).toBe(false);
