@@ -257,7 +257,7 @@ export interface Column {
   /** Column name — As written in the file's header (without the unit). */
   name: string;
   /** Column quantity */
-  quantity: 'temperature' | 'field' | 'resistance' | 'resistivity' | 'sheet-resistance' | 'hall-resistance' | 'magnetoresistance' | 'conductance' | 'voltage' | 'current' | 'lock-in-x' | 'lock-in-y' | 'lock-in-r' | 'lock-in-phase' | 'frequency' | 'angle' | 'time' | 'gate-voltage' | 'thermometer-resistance' | 'other';
+  quantity: 'temperature' | 'field' | 'resistance' | 'resistivity' | 'sheet-resistance' | 'hall-resistance' | 'hall-resistivity' | 'magnetoresistance' | 'conductance' | 'conductivity' | 'voltage' | 'current' | 'lock-in-x' | 'lock-in-y' | 'lock-in-r' | 'lock-in-phase' | 'frequency' | 'angle' | 'time' | 'gate-voltage' | 'thermometer-resistance' | 'other';
   /** Column unit — UCUM code, case-sensitive (e.g. K, mOhm, uOhm.cm, Oe). */
   unit: string;
   /** Column role */

@@ -131,6 +131,13 @@ describe('assessMeasurement', () => {
       expect(only(assessMeasurement({ resistivityOhmM: { min: 1e-13, max: 5e-10 }, temperatureK: { min: 2, max: 300 } }), 'resistivity-too-low').message).toContain('even at 300 K');
       expect(assessMeasurement({ resistivityOhmM: { min: 1.587e-8, max: 1.6e-8 }, temperatureK: { min: 293, max: 293 } })).toEqual([]);
     });
+    it('does not flag the good conductors at 293 K: Cu 1.678, Ag 1.587, Au 2.214, Al 2.650 ×1e-8 Ω·m (CRC Handbook, from memory) or IACS Cu 1.72414 µΩ·cm (IEC 60028)', () => {
+      for (const rho of [1.678e-8, 1.587e-8, 2.214e-8, 2.65e-8, 1.72414e-8]) {
+        expect(assessMeasurement({ resistivityOhmM: { min: rho, max: rho }, temperatureK: { min: 293, max: 293 } }), `${rho}`).toEqual([]);
+        // a thickness entered in mm instead of µm makes the same metal read 1000× too low: flagged
+        expect(codes(assessMeasurement({ resistivityOhmM: { min: rho / 1000, max: rho / 1000 }, temperatureK: { min: 293, max: 293 } }))).toEqual(['resistivity-too-low']);
+      }
+    });
     it('resistivity above 1e10 Ω·m', () => {
       expect(only(assessMeasurement({ resistivityOhmM: { min: 1e9, max: 3e12 } }), 'resistivity-very-high').severity).toBe('warning');
     });
