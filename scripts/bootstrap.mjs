@@ -64,6 +64,14 @@ for (const signal of ['SIGINT', 'SIGTERM', 'SIGHUP']) {
     if (child.exitCode === null && child.signalCode === null) child.kill(signal);
   });
 }
+// `npm` runs us through `sh -c`; when npm is killed with SIGTERM the shell dies without telling us and we are
+// re-parented. Notice that and stop the runner the same way, so no service outlives npm.
+const parent = process.ppid;
+const watch = setInterval(() => {
+  if (process.ppid === parent) return;
+  clearInterval(watch);
+  if (child.exitCode === null && child.signalCode === null) child.kill('SIGTERM');
+}, 500).unref();
 child.on('error', (error) => {
   console.error(`could not start node: ${error.message}`);
   process.exit(1);

@@ -1,4 +1,5 @@
 import Link from 'next/link';
+import { PublishedCard } from '@/components/datasets/published-card';
 import { listRecentPublished } from '@/lib/datasets/repo';
 import { listGroups } from '@/lib/groups/repo';
 import { plural } from '@/lib/format/plural';
@@ -32,12 +33,7 @@ export default async function HomePage() {
         ) : (
           <ul className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
             {recent.map((d) => (
-              <li key={d.version_id} className="rounded-lg border border-slate-200 bg-white p-4 shadow-sm">
-                <p className="text-xs uppercase tracking-wide text-slate-500">{d.group_name}</p>
-                <p className="mt-1 font-medium text-slate-900">{d.title}</p>
-                <p className="mt-2 font-mono text-xs text-slate-600">{d.doi ?? 'DOI pending'} · v{d.version_number}</p>
-                {d.embargo_until && <p className="mt-1 text-xs text-amber-800">Files under embargo until {d.embargo_until} (00:00 UTC)</p>}
-              </li>
+              <li key={d.version_id}><PublishedCard dataset={d} /></li>
             ))}
           </ul>
         )}

@@ -37,18 +37,24 @@ export const interruptedBy = () => interrupted;
  * Ctrl-C in a terminal reaches us twice (directly and forwarded by bootstrap.mjs); repeats only print a note.
  */
 export function handleSignals(onSignal: (signal: NodeJS.Signals) => void): void {
-  for (const sig of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) {
-    process.on(sig, () => {
-      if (interrupted) {
-        console.log(`(${sig} again: still stopping services, please wait)`);
-        return;
-      }
-      interrupted = sig;
-      console.log(`\n${sig} received: stopping…`);
-      current?.kill('SIGTERM');
-      onSignal(sig);
-    });
-  }
+  const handle = (sig: NodeJS.Signals, why: string) => {
+    if (interrupted) {
+      console.log(`(${sig} again: still stopping services, please wait)`);
+      return;
+    }
+    interrupted = sig;
+    console.log(`\n${why}: stopping…`);
+    current?.kill('SIGTERM');
+    onSignal(sig);
+  };
+  for (const sig of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(sig, () => handle(sig, `${sig} received`));
+  // If bootstrap.mjs (our parent) is killed outright we are re-parented: treat it as SIGTERM so nothing is left running.
+  const parent = process.ppid;
+  const watch = setInterval(() => {
+    if (process.ppid === parent) return;
+    clearInterval(watch);
+    handle('SIGTERM', `parent process ${parent} went away`);
+  }, 500).unref();
 }
 
 export const seconds = (since: number) => ((Date.now() - since) / 1000).toFixed(1);

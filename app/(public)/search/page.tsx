@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import { PageTitle } from '@/components/ui/page-title';
+import { PublishedCard } from '@/components/datasets/published-card';
 import { listRecentPublished } from '@/lib/datasets/repo';
 
 export const metadata: Metadata = { title: 'Search' };
@@ -16,12 +17,7 @@ export default async function SearchPage({ searchParams }: { searchParams: Promi
       ) : (
         <ul className="flex flex-col gap-3">
           {results.map((d) => (
-            <li key={d.version_id} className="rounded-lg border border-slate-200 bg-white p-4">
-              <p className="text-xs uppercase tracking-wide text-slate-500">{d.group_name}</p>
-              <p className="font-medium">{d.title}</p>
-              <p className="mt-1 font-mono text-xs text-slate-600">{d.doi ?? 'DOI pending'} · v{d.version_number}</p>
-              {d.embargo_until && <p className="mt-1 text-xs text-amber-800">Files under embargo until {d.embargo_until} (00:00 UTC)</p>}
-            </li>
+            <li key={d.version_id}><PublishedCard dataset={d} /></li>
           ))}
         </ul>
       )}
