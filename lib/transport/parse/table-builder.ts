@@ -1,0 +1,285 @@
+import { cellBounds, looksLikeData } from './cells';
+import { mapColumn, type ColumnMapping } from './column-mapping';
+import { ColumnStore } from './column-store';
+import { detectLayout, type Layout } from './delimiter';
+import { TransportParseError } from './errors';
+import { splitHeaderCell } from './header';
+import { CELL_NUMBER, CELL_TEXT, NumberReader } from './number';
+import { commentBody, readPreamble, sectionName, type BufferedLine } from './preamble';
+import { normaliseName } from './quantity-names';
+import type { ColumnOverride, ParseOptions } from './types';
+import { WarningLog } from './warnings';
+
+const SAMPLE_LINES = 20;
+const MAX_PREAMBLE_LINES = 20_000;
+const MAX_PREAMBLE_CHARS = 8 * 1024 * 1024;
+
+export type ColumnSpec = { index: number; name: string; rawHeader: string; unitText: string | null; mapping: ColumnMapping };
+
+/** k when the SI factor is exactly 10^k (mΩ, µΩ·cm, Oe → T), else 0: such columns are scaled in the exponent. */
+function decimalShift(m: ColumnMapping): number {
+  if (!m.converted || m.offset !== 0 || m.factor === 1 || !(m.factor > 0)) return 0;
+  const k = Math.round(Math.log10(m.factor));
+  return k !== 0 && Math.abs(k) <= 30 && Number(`1e${k}`) === m.factor ? k : 0;
+}
+
+/** Turns lines into columns: buffers the preamble and first data lines, decides the layout, then streams rows. */
+export class TableBuilder {
+  readonly warnings = new WarningLog();
+  metadata: Record<string, string> = {};
+  layout: Layout | undefined;
+  specs: ColumnSpec[] = [];
+  headerLine: number | null = null;
+  firstDataLine = 0;
+  rowCount = 0;
+  truncated = false;
+  private stores: ColumnStore[] = [];
+  private buffer: BufferedLine[] = [];
+  private bufferChars = 0;
+  private run = 0;
+  private runStart = -1;
+  private nonBlankSeen = false;
+  private readonly reader = new NumberReader();
+  private bounds = new Int32Array(0);
+  private row = new Float64Array(0);
+  private kinds = new Uint8Array(0);
+  private decimalCode = 46;
+  private shifts = new Int8Array(0);
+  private commentSemicolon = true;
+
+  constructor(private readonly options: ParseOptions) {}
+
+  /** Sink for readLines; false stops reading (row limit reached). */
+  line = (s: string, start: number, end: number, no: number): boolean => {
+    if (this.layout) return this.dataLine(s, start, end, no);
+    const text = s.slice(start, end);
+    this.buffer.push({ no, text });
+    this.bufferChars += text.length;
+    const trimmed = text.trim();
+    if (trimmed !== '') this.nonBlankSeen = true;
+    if (trimmed === '' || (commentBody(text) !== undefined && !looksLikeData(text, this.reader))) {
+      // Blank and comment lines neither start nor break a run of data lines.
+    } else if (sectionName(text) === undefined && looksLikeData(text, this.reader)) {
+      if (this.run === 0) this.runStart = this.buffer.length - 1;
+      this.run++;
+    } else this.run = 0;
+    if (this.run >= SAMPLE_LINES) return this.configure();
+    if (this.buffer.length > MAX_PREAMBLE_LINES || this.bufferChars > MAX_PREAMBLE_CHARS) {
+      if (this.run > 0) return this.configure();
+      throw new TransportParseError('too-many-header-lines', `No table of numbers was found in the first ${this.buffer.length} lines.`, no);
+    }
+    return true;
+  };
+
+  /** Called after the last line; decides the layout for short files and reports files without data. */
+  end(): void {
+    if (this.layout) return;
+    if (this.run > 0) {
+      this.configure();
+      return;
+    }
+    if (!this.nonBlankSeen) throw new TransportParseError('empty', 'The file contains no text, only blank lines.');
+    const plain = this.buffer.filter((l) => l.text.trim() !== '' && commentBody(l.text) === undefined && sectionName(l.text) === undefined);
+    throw new TransportParseError(
+      'no-data',
+      plain.length > 0
+        ? `The file has a header (line ${plain[plain.length - 1].no}) but no rows of numbers.`
+        : 'The file has no rows of numbers (only comments or metadata).',
+    );
+  }
+
+  private configure(): boolean {
+    const buffered = this.buffer;
+    let dataLines = buffered.slice(this.runStart);
+    const sample = dataLines.filter((l) => l.text.trim() !== '' && commentBody(l.text) === undefined).slice(0, SAMPLE_LINES).map((l) => l.text);
+    const layout = detectLayout(sample, { delimiter: this.options.delimiter, decimalSeparator: this.options.decimalSeparator });
+    this.runStart = this.extendDataStart(layout);
+    dataLines = buffered.slice(this.runStart);
+    const preamble = readPreamble(buffered.slice(0, this.runStart), layout.delimiter, layout.columnCount);
+    this.metadata = preamble.metadata;
+    this.headerLine = preamble.headerLine;
+    this.firstDataLine = dataLines[0]?.no ?? 0;
+    preamble.warnings.forEach((w) => this.warnings.add(w));
+    this.specs = this.buildSpecs(preamble.headerCells, preamble.unitCells, layout.columnCount);
+    const n = this.specs.length;
+    this.stores = this.specs.map(() => new ColumnStore());
+    this.bounds = new Int32Array(2 * (n + 8));
+    this.row = new Float64Array(n);
+    this.kinds = new Uint8Array(n);
+    this.shifts = Int8Array.from(this.specs, (spec) => decimalShift(spec.mapping));
+    this.decimalCode = layout.decimalSeparator.charCodeAt(0);
+    this.commentSemicolon = layout.delimiter !== ';';
+    this.layout = layout;
+    this.buffer = [];
+    for (const l of dataLines) if (!this.dataLine(l.text, 0, l.text.length, l.no)) return false;
+    return true;
+  }
+
+  /** Every cell a number or missing marker, and as many cells as the table has columns. */
+  private isFullRow(text: string, layout: Layout): boolean {
+    const bounds = new Int32Array(2 * (layout.columnCount + 2));
+    const n = cellBounds(text, 0, text.length, layout.delimiter, bounds);
+    if (n !== layout.columnCount) return false;
+    for (let k = 0; k < n; k++) {
+      this.reader.read(text, bounds[2 * k], bounds[2 * k + 1], layout.decimalSeparator.charCodeAt(0));
+      if (this.reader.kind === CELL_TEXT) return false;
+    }
+    return true;
+  }
+
+  /**
+   * The run that triggered the layout may follow a text line inside the data ("end of run") rather than the header:
+   * when the line above the run is preceded by complete numeric rows of the same width, those rows are data too.
+   */
+  private extendDataStart(layout: Layout): number {
+    const lines = this.buffer;
+    const skip = (i: number) => {
+      while (i >= 0 && (lines[i].text.trim() === '' || commentBody(lines[i].text) !== undefined)) i--;
+      return i;
+    };
+    let start = this.runStart;
+    for (;;) {
+      const textLine = skip(start - 1);
+      if (textLine < 0 || sectionName(lines[textLine].text) !== undefined) return start;
+      let i = skip(textLine - 1);
+      if (i < 0 || !this.isFullRow(lines[i].text, layout)) return start;
+      while (i >= 0 && this.isFullRow(lines[i].text, layout)) {
+        start = i;
+        i = skip(i - 1);
+      }
+    }
+  }
+
+  private buildSpecs(headerCells: string[] | null, unitCells: string[] | null, count: number): ColumnSpec[] {
+    const line = this.headerLine ?? 0;
+    const cells = headerCells ?? [];
+    if (headerCells && cells.length !== count) {
+      const extra = cells.slice(count).filter((c) => c !== '');
+      if (cells.length < count || extra.length > 0) {
+        this.warnings.add({
+          line,
+          code: 'header-count-mismatch',
+          message: `The header has ${cells.length} names but the data rows have ${count} values${cells.length > count ? `; names after the ${count}th are ignored` : '; the missing names are column_N'}.`,
+        });
+      }
+    }
+    const used = new Map<string, number>();
+    const raw = Array.from({ length: count }, (_, i) => cells[i] ?? '');
+    const split = raw.map((c) => splitHeaderCell(c));
+    const names = split.map((h, i) => {
+      let name = h.name;
+      if (name === '') {
+        name = `column_${i + 1}`;
+        if (headerCells) this.warnings.add({ line, code: 'empty-header', message: `Column ${i + 1} has no name in the header; it is called ${name}.`, column: name });
+      }
+      const seen = used.get(name) ?? 0;
+      used.set(name, seen + 1);
+      if (seen > 0) {
+        const renamed = `${name}_${seen + 1}`;
+        this.warnings.add({ line, code: 'duplicate-header', message: `The header names '${name}' more than once; column ${i + 1} is renamed ${renamed}.`, column: renamed });
+        name = renamed;
+      }
+      return name;
+    });
+    const keys = new Set(names.map(normaliseName));
+    const ctx = { hasLockInPair: keys.has('x') && keys.has('y') };
+    return names.map((name, i) => {
+      const unitText = split[i].unitText ?? (unitCells?.[i]?.trim().replace(/^[([{](.*)[)\]}]$/, '$1') || null);
+      const override = this.findOverride(name, raw[i], split[i].name);
+      const rawHeader = raw[i];
+      const mapping = mapColumn(rawHeader || name, name, unitText, ctx, override);
+      if (override) this.warnings.add({ line, code: 'column-override', message: `Column '${name}' mapped from the dataset metadata (${mapping.quantity}, ${mapping.ucum ?? 'unit unknown'}).`, column: name });
+      for (const note of mapping.notes) this.warnings.add({ line, code: note.code, message: note.message, column: name });
+      return { index: i, name, rawHeader, unitText, mapping };
+    });
+  }
+
+  private findOverride(name: string, rawHeader: string, headerName: string): ColumnOverride | undefined {
+    const list = this.options.columns ?? [];
+    return (
+      list.find((c) => c.name === name || c.name === rawHeader || c.name === headerName) ??
+      list.find((c) => c.name.toLowerCase() === name.toLowerCase())
+    );
+  }
+
+  private dataLine(s: string, start: number, end: number, no: number): boolean {
+    let i = start;
+    while (i < end && (s.charCodeAt(i) === 32 || s.charCodeAt(i) === 9)) i++;
+    if (i === end) return true;
+    const c = s.charCodeAt(i);
+    // Comments and section markers inside the data: # % ! // [..] (and ; unless it is the delimiter).
+    if (c === 35 || c === 37 || c === 33 || c === 91 || (c === 47 && s.charCodeAt(i + 1) === 47) || (c === 59 && this.commentSemicolon)) return true;
+    const layout = this.layout as Layout;
+    const cols = this.specs.length;
+    let n = cellBounds(s, start, end, layout.delimiter, this.bounds);
+    const bounds = this.bounds;
+    if (n === cols + 1 && bounds[2 * cols] === bounds[2 * cols + 1]) n = cols; // trailing delimiter
+    if (n > cols) {
+      this.warnings.add({ line: no, code: 'long-row', message: `Line ${no} has ${n} values but the table has ${cols} columns; the row is skipped.` });
+      return true;
+    }
+    const reader = this.reader;
+    const decimal = this.decimalCode;
+    let text = 0;
+    let numbers = 0;
+    for (let k = 0; k < n; k++) {
+      this.row[k] = reader.read(s, bounds[2 * k], bounds[2 * k + 1], decimal, this.shifts[k]);
+      this.kinds[k] = reader.kind;
+      if (reader.kind === CELL_TEXT) text++;
+      else if (reader.kind === CELL_NUMBER) numbers++;
+    }
+    if (text > 0 && numbers === 0) {
+      this.warnings.add({ line: no, code: 'text-row', message: `Line ${no} has no numbers ('${s.slice(start, Math.min(end, start + 60))}'); the row is skipped.` });
+      return true;
+    }
+    if (text > 0) this.reportText(s, no, n);
+    for (let k = 0; k < n; k++) this.stores[k].push(this.row[k]);
+    if (n < cols) {
+      for (let k = n; k < cols; k++) this.stores[k].push(NaN);
+      this.warnings.add({ line: no, code: 'short-row', message: `Line ${no} has ${n} values but the table has ${cols} columns; the missing values are NaN.` });
+    }
+    this.rowCount++;
+    if (this.options.maxRows !== undefined && this.rowCount >= this.options.maxRows) {
+      this.truncated = true;
+      return false;
+    }
+    return true;
+  }
+
+  private reportText(s: string, no: number, n: number): void {
+    for (let k = 0; k < n; k++) {
+      if (this.kinds[k] !== CELL_TEXT) continue;
+      const cell = s.slice(this.bounds[2 * k], this.bounds[2 * k + 1]).trim().slice(0, 40);
+      const name = this.specs[k].name;
+      this.warnings.add({ line: no, code: 'non-numeric-cell', column: name, message: `Line ${no}, column '${name}': '${cell}' is not a number; it is stored as NaN.` });
+    }
+  }
+
+  /** Column values (converted to SI where the unit is known) and their statistics; empties the stores. */
+  finishColumns(): { spec: ColumnSpec; values: Float64Array; nanCount: number; range: { min: number; max: number } | null }[] {
+    return this.specs.map((spec, k) => {
+      const values = this.stores[k].finish();
+      const { factor, offset, converted } = spec.mapping;
+      // Decimal factors were applied while reading (decimalShift); only other factors and offsets remain.
+      const scale = converted && this.shifts[k] === 0 && (factor !== 1 || offset !== 0);
+      // Dividing by an exact 1000 rounds once (13 mΩ → 0.013 Ω); multiplying by 0.001 can be off by one ulp.
+      const inverse = 1 / factor;
+      const divisor = factor < 1 && Math.abs(inverse - Math.round(inverse)) < 1e-9 * inverse ? Math.round(inverse) : 0;
+      let min = Infinity;
+      let max = -Infinity;
+      let nanCount = 0;
+      for (let i = 0; i < values.length; i++) {
+        let v = values[i];
+        if (v !== v) {
+          nanCount++;
+          continue;
+        }
+        if (scale) values[i] = v = divisor ? v / divisor + offset : v * factor + offset;
+        if (v < min && v !== -Infinity) min = v;
+        if (v > max && v !== Infinity) max = v;
+      }
+      return { spec, values, nanCount, range: min <= max ? { min, max } : null };
+    });
+  }
+}
+
