@@ -1,4 +1,4 @@
-// Entry for `npm start`, `npm test` and `npm run reset`. Plain Node, no dependencies: node_modules may not exist yet.
+// Entry for `npm start`, `npm test`, `npm run reset` and `npm run services`. Plain Node, no dependencies: node_modules may not exist yet.
 // Installs dependencies when missing or stale, then runs scripts/<command>.ts under tsx, passing signals and the exit code through.
 import { spawn, spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
@@ -7,7 +7,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
-const COMMANDS = ['start', 'test', 'reset'];
+const COMMANDS = ['start', 'test', 'reset', 'services'];
 const [command, ...args] = process.argv.slice(2);
 if (!COMMANDS.includes(command)) {
   console.error(`usage: node scripts/bootstrap.mjs <${COMMANDS.join('|')}> [args…]`);
