@@ -1,0 +1,55 @@
+import 'server-only';
+import type { DoiClient } from '@/lib/doi/client';
+import { handleDoiReserve } from '@/lib/doi/reserve-draft-doi';
+import { log } from '@/lib/log';
+import { retryDelayMs } from './backoff';
+import { claimDue, claimFresh, markFailed, markProcessed, type OutboxRow } from './repo';
+
+export type OutboxHandler = (payload: unknown, row: OutboxRow) => Promise<void>;
+export type OutboxHandlers = Readonly<Record<string, OutboxHandler>>;
+export type OutboxCounts = { claimed: number; done: number; failed: number };
+
+/** The jobs this app knows how to do; `doi` swaps the DOI client (e.g. another agency endpoint). */
+export function defaultOutboxHandlers(options: { doi?: DoiClient } = {}): OutboxHandlers {
+  return {
+    'doi.reserve': (payload) => handleDoiReserve(payload, options.doi),
+  };
+}
+
+/** Runs one claimed job; on failure schedules the next try with backoff. True when the job is done. */
+async function runClaimed(row: OutboxRow, handlers: OutboxHandlers): Promise<boolean> {
+  const handler = handlers[row.topic];
+  try {
+    if (!handler) throw new Error(`no handler for outbox topic ${row.topic}`);
+    await handler(row.payload, row);
+    await markProcessed(row.id);
+    return true;
+  } catch (error) {
+    const message = error instanceof Error ? error.message : String(error);
+    const delay = retryDelayMs(row.attempts);
+    await markFailed(row.id, message, delay);
+    log('warn', 'outbox job failed; will retry', { id: row.id, topic: row.topic, attempts: row.attempts, retryInMs: delay, error: message });
+    return false;
+  }
+}
+
+/** Claims and runs the due jobs of the topics `handlers` knows; safe to run in several processes at once. */
+export async function processOutboxOnce(handlers: OutboxHandlers = defaultOutboxHandlers(), options: { limit?: number } = {}): Promise<OutboxCounts> {
+  const rows = await claimDue(Object.keys(handlers), options.limit ?? 20);
+  const counts: OutboxCounts = { claimed: rows.length, done: 0, failed: 0 };
+  for (const row of rows) {
+    if (await runClaimed(row, handlers)) counts.done += 1;
+    else counts.failed += 1;
+  }
+  return counts;
+}
+
+/**
+ * The creator's first try of a job it just committed (enqueued with a hold). 'skipped' when another process
+ * already took it.
+ */
+export async function tryOutboxJobNow(id: number, handlers: OutboxHandlers = defaultOutboxHandlers()): Promise<'done' | 'failed' | 'skipped'> {
+  const row = await claimFresh(id);
+  if (!row) return 'skipped';
+  return (await runClaimed(row, handlers)) ? 'done' : 'failed';
+}
