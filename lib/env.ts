@@ -22,6 +22,8 @@ export type ServerEnv = {
   NEXTAUTH_URL: string;
   NEXTAUTH_SECRET: string;
   LOG_LEVEL?: 'debug' | 'info' | 'warn' | 'error';
+  /** Bytes, as a decimal string; lib/uploads/limits.ts reads it. */
+  MAX_UPLOAD_BYTES?: string;
 };
 
 let cached: ServerEnv | undefined;

@@ -1,4 +1,5 @@
-// startStack: MariaDB, s3rver, the SMTP fake and the DOI fake for one profile, started together and stopped in order.
+// startStack: MariaDB, s3rver, the SMTP fake and the DOI fake for one profile, started together, then the worker;
+// stopped in order.
 import { mkdirSync, rmSync } from 'node:fs';
 import { buildEnv, DATABASE_NAME, S3_BUCKET, type StackEnv } from './env';
 import { type DataLayout, type Profile, profileLayout, rel } from './layout';
@@ -79,6 +80,21 @@ export async function startStack(profile: Profile, opts: StackOptions): Promise<
     timed('doi', `on ${env.DOI_API_URL}`, log, fake('doi', 'scripts/fakes/doi-fake.ts', { DOI_DIR: layout.doi })),
   ]);
   const services = attempts.flatMap((a) => (a.status === 'fulfilled' ? [a.value] : []));
+  const failures = attempts.flatMap((a) => (a.status === 'rejected' ? [a.reason as unknown] : []));
+  // The worker (analysis, outbox, upload cleanup) needs the database and storage, so it starts once they are up.
+  // It tolerates tables that the runner migrates only after startStack returns: it retries, logging once a minute.
+  if (failures.length === 0) {
+    try {
+      services.push(
+        await timed('worker', '(file analysis, outbox, upload cleanup)', log, fake('worker', 'scripts/worker.ts', {
+          // 'server-only' resolves to its empty module under the react-server condition, as inside Next.
+          NODE_OPTIONS: [process.env.NODE_OPTIONS, '--conditions=react-server'].filter(Boolean).join(' '),
+        })),
+      );
+    } catch (error) {
+      failures.push(error);
+    }
+  }
   const adopted: Service[] = [];
   let stopping: Promise<void> | undefined;
 
@@ -91,7 +107,6 @@ export async function startStack(profile: Profile, opts: StackOptions): Promise<
       removePid(layout, 'runner');
     })());
 
-  const failures = attempts.flatMap((a) => (a.status === 'rejected' ? [a.reason as unknown] : []));
   if (failures.length) {
     await stop();
     const text = failures.map((f) => (f instanceof ServiceStartError ? describeStartError(f) : `✗ ${String(f)}`)).join('\n\n');

@@ -1,0 +1,85 @@
+// The background worker: file analysis, the outbox (DOI reservations, …) and the cleanup of abandoned uploads, off
+// the request path. Run as `node --conditions=react-server --import tsx scripts/worker.ts` (the condition makes
+// 'server-only' importable outside Next); scripts/stack starts it for npm start / npm test. Several may run at once.
+import { runAnalysisOnce } from '@/lib/analysis/run-analysis';
+import { db } from '@/lib/db';
+import { env } from '@/lib/env';
+import { log } from '@/lib/log';
+import { processOutboxOnce } from '@/lib/outbox/process-outbox';
+import { cleanupStaleUploads } from '@/lib/uploads/cleanup-stale-uploads';
+import { announceReady, onStop } from './fakes/lifecycle';
+
+const OUTBOX_EVERY_MS = 2_000;
+const CLEANUP_EVERY_MS = 5 * 60_000;
+const IDLE_MS = 1_000;
+const MAX_BACKOFF_MS = 30_000;
+
+const stopping = new AbortController();
+let loopDone: Promise<void> = Promise.resolve();
+
+const sleep = (ms: number) =>
+  new Promise<void>((resolve) => {
+    const t = setTimeout(resolve, ms);
+    stopping.signal.addEventListener('abort', () => (clearTimeout(t), resolve()), { once: true });
+  });
+
+// The same failure (tables not migrated yet, a service down) is logged once a minute, not on every turn.
+const lastLogged = new Map<string, number>();
+function logFailure(task: string, error: unknown): void {
+  const message = error instanceof Error ? error.message : String(error);
+  const key = `${task}:${message}`;
+  if (Date.now() - (lastLogged.get(key) ?? 0) < 60_000) return;
+  lastLogged.set(key, Date.now());
+  log('warn', `worker: ${task} failed; retrying`, { error: message });
+}
+
+/** Runs `task` at most every `everyMs`; a failure delays the next try with doubling backoff. */
+function periodic(name: string, everyMs: number, task: () => Promise<unknown>) {
+  let next = 0;
+  let failures = 0;
+  return async () => {
+    if (Date.now() < next) return;
+    try {
+      await task();
+      failures = 0;
+      next = Date.now() + everyMs;
+    } catch (error) {
+      failures += 1;
+      logFailure(name, error);
+      next = Date.now() + Math.min(MAX_BACKOFF_MS, everyMs * 2 ** failures);
+    }
+  };
+}
+
+async function loop(): Promise<void> {
+  const outbox = periodic('outbox', OUTBOX_EVERY_MS, () => processOutboxOnce());
+  const cleanup = periodic('upload cleanup', CLEANUP_EVERY_MS, () => cleanupStaleUploads());
+  let analysisFailures = 0;
+  while (!stopping.signal.aborted) {
+    let busy = false;
+    try {
+      const result = await runAnalysisOnce({ signal: stopping.signal });
+      if (result) log('info', 'worker: analysed a file', { ...result });
+      busy = result !== null && result.outcome !== 'released';
+      analysisFailures = result?.outcome === 'released' ? analysisFailures + 1 : 0;
+    } catch (error) {
+      analysisFailures += 1;
+      logFailure('analysis', error);
+    }
+    await outbox();
+    await cleanup();
+    if (!busy) await sleep(analysisFailures ? Math.min(MAX_BACKOFF_MS, IDLE_MS * 2 ** analysisFailures) : IDLE_MS);
+  }
+}
+
+env(); // fail fast, with every missing setting named, before announcing readiness
+onStop(async () => {
+  stopping.abort();
+  await loopDone;
+  await db().destroy();
+});
+loopDone = loop().catch((error: unknown) => {
+  log('error', 'worker loop crashed', { error: error instanceof Error ? error.stack : String(error) });
+  process.exit(1);
+});
+announceReady('worker running: analysis, outbox, upload cleanup');
