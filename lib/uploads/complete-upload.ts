@@ -74,10 +74,10 @@ export async function completeUpload(args: { user: UserLike; fileId: string; inp
   const parsed = validateWith<CompleteInput>(schema, args.input ?? {});
   if (!parsed.ok) throw new AppError('validation_failed', 'The completion request has errors.', { fieldErrors: parsed.fieldErrors });
   if (file.upload_state === 'verified') return { file: toFileView(file) };
-  if (file.upload_state !== 'pending' || !file.staging_key || !file.upload_id) {
+  if (file.upload_state !== 'pending' || !file.staging_key || !file.declared_sha256) {
     throw new AppError('conflict', 'This upload can no longer be completed. Start it again.');
   }
-  const declared = file.upload_id;
+  const declared = file.declared_sha256;
   const store = options.store ?? defaultStore();
   const plan = planParts(file.size_bytes);
   const staged = await listStagedParts(store, file.staging_key);

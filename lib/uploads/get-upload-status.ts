@@ -29,7 +29,7 @@ type UserLike = { id: string; siteRole: 'admin' | 'user' };
 export async function getUploadStatus(args: { user: UserLike; fileId: string }, options: { store?: ObjectStore } = {}): Promise<UploadStatus> {
   const { file } = await loadFileFor(args.fileId, args.user, 'edit');
   const plan = planParts(file.size_bytes);
-  const base = { fileId: file.id, name: file.name, sizeBytes: file.size_bytes, sha256: file.sha256 ?? file.upload_id, uploadState: file.upload_state, ...plan };
+  const base = { fileId: file.id, name: file.name, sizeBytes: file.size_bytes, sha256: file.sha256 ?? file.declared_sha256, uploadState: file.upload_state, ...plan };
   if (file.upload_state !== 'pending' || !file.staging_key) return { ...base, completedParts: [], parts: [] };
   const store = options.store ?? defaultStore();
   const staged = await listStagedParts(store, file.staging_key);

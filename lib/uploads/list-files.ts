@@ -22,8 +22,8 @@ export function toFileView(row: FileRow): FileView {
     name: row.name,
     role: row.role,
     sizeBytes: row.size_bytes,
-    // A pending upload shows the digest it declared (kept in upload_id until verified).
-    sha256: row.sha256 ?? row.upload_id,
+    // A pending upload shows the digest it declared (kept in declared_sha256 until verified).
+    sha256: row.sha256 ?? row.declared_sha256,
     uploadState: row.upload_state,
     analysisState: row.analysis_state,
     analysisProgress: Math.min(1, Math.max(0, row.analysis_progress)),

@@ -16,7 +16,7 @@ export type FileRow = {
   sha256: string | null;
   upload_state: UploadState;
   /** While pending: the SHA-256 the uploader declared (files.sha256 references blobs, so it stays null until verified). */
-  upload_id: string | null;
+  declared_sha256: string | null;
   staging_key: string | null;
   analysis_state: AnalysisState;
   analysis_progress: number;
@@ -28,7 +28,7 @@ export type FileRow = {
 
 // Every column but the (possibly large) analysis JSON, which only the analysis route reads.
 const FILE_COLUMNS = [
-  'id', 'version_id', 'name', 'role', 'media_type', 'size_bytes', 'sha256', 'upload_state', 'upload_id', 'staging_key',
+  'id', 'version_id', 'name', 'role', 'media_type', 'size_bytes', 'sha256', 'upload_state', 'declared_sha256', 'staging_key',
   'analysis_state', 'analysis_progress', 'analysis_error', 'created_by', 'created_at', 'updated_at',
 ] as const;
 
@@ -87,8 +87,7 @@ export async function insertPendingUpload(
       pendingBytes: Number(pending?.bytes ?? 0),
     });
     if (existing) await trx('files').where({ id: existing.id }).delete();
-    const { declared_sha256, ...columns } = file;
-    await trx('files').insert({ ...columns, upload_id: declared_sha256, upload_state: 'pending', analysis_state: 'none' });
+    await trx('files').insert({ ...file, upload_state: 'pending', analysis_state: 'none' });
     return { outcome: 'created', replaced: existing ? normalise(existing) : null };
   });
 }
@@ -141,7 +140,7 @@ export async function finishVerifiedUpload(input: FinishInput): Promise<FinishRe
       if (!blob) return { outcome: 'blob-missing' } as const;
     }
     await trx('files').where({ id: input.fileId }).update({
-      sha256: input.sha256, upload_state: 'verified', upload_id: null, staging_key: null,
+      sha256: input.sha256, upload_state: 'verified', declared_sha256: null, staging_key: null,
       analysis_state: input.analysisState, analysis_progress: 0, analysis_error: null, updated_at: trx.fn.now(),
     });
     return { outcome: 'verified', newBlob } as const;
