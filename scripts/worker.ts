@@ -6,6 +6,7 @@ import { db } from '@/lib/db';
 import { env } from '@/lib/env';
 import { log } from '@/lib/log';
 import { processOutboxOnce } from '@/lib/outbox/process-outbox';
+import { sweepEndedEmbargoes } from '@/lib/publishing/notify-embargo-end';
 import { cleanupStaleUploads } from '@/lib/uploads/cleanup-stale-uploads';
 import { announceReady, onStop } from './fakes/lifecycle';
 
@@ -54,6 +55,8 @@ function periodic(name: string, everyMs: number, task: () => Promise<unknown>) {
 async function loop(): Promise<void> {
   const outbox = periodic('outbox', OUTBOX_EVERY_MS, () => processOutboxOnce());
   const cleanup = periodic('upload cleanup', CLEANUP_EVERY_MS, () => cleanupStaleUploads());
+  // Embargo-ended mail goes out on first access or by this sweep, whichever comes first.
+  const embargoSweep = periodic('embargo sweep', CLEANUP_EVERY_MS, () => sweepEndedEmbargoes());
   let analysisFailures = 0;
   while (!stopping.signal.aborted) {
     let busy = false;
@@ -68,6 +71,7 @@ async function loop(): Promise<void> {
     }
     await outbox();
     await cleanup();
+    await embargoSweep();
     if (!busy) await sleep(analysisFailures ? Math.min(MAX_BACKOFF_MS, IDLE_MS * 2 ** analysisFailures) : IDLE_MS);
   }
 }

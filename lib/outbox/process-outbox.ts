@@ -2,6 +2,7 @@ import 'server-only';
 import type { DoiClient } from '@/lib/doi/client';
 import { handleDoiReserve } from '@/lib/doi/reserve-draft-doi';
 import { log } from '@/lib/log';
+import { publishingOutboxHandlers } from '@/lib/publishing/outbox-handlers';
 import { retryDelayMs } from './backoff';
 import { claimDue, claimFresh, markFailed, markProcessed, type OutboxRow } from './repo';
 
@@ -13,6 +14,7 @@ export type OutboxCounts = { claimed: number; done: number; failed: number };
 export function defaultOutboxHandlers(options: { doi?: DoiClient } = {}): OutboxHandlers {
   return {
     'doi.reserve': (payload) => handleDoiReserve(payload, options.doi),
+    ...publishingOutboxHandlers(),
   };
 }
 
