@@ -30,7 +30,7 @@ export async function SiteHeader() {
           />
         </form>
         <nav aria-label="Main" className="flex items-center gap-1 text-sm">
-          {NAV.map((item) => (
+          {(user ? [...NAV, { href: '/deposit', label: 'Deposit' }] : NAV).map((item) => (
             <Link key={item.href} href={item.href} className="rounded-md px-3 py-1.5 text-slate-200 hover:bg-slate-700 hover:text-white">
               {item.label}
             </Link>
