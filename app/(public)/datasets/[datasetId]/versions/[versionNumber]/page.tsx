@@ -1,0 +1,18 @@
+import type { Metadata } from 'next';
+import { DatasetLanding } from '@/components/dataset/dataset-landing';
+import { landingMetadata, loadLanding } from '../../load-landing';
+
+export const dynamic = 'force-dynamic';
+
+type Params = { params: Promise<{ datasetId: string; versionNumber: string }> };
+
+export async function generateMetadata({ params }: Params): Promise<Metadata> {
+  const { datasetId, versionNumber } = await params;
+  return landingMetadata(datasetId, versionNumber);
+}
+
+/** One version of a dataset (what its version DOI resolves to). */
+export default async function DatasetVersionPage({ params }: Params) {
+  const { datasetId, versionNumber } = await params;
+  return <DatasetLanding view={await loadLanding(datasetId, versionNumber)} />;
+}
