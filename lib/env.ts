@@ -21,6 +21,10 @@ export type ServerEnv = {
   DOI_PREFIX: string;
   NEXTAUTH_URL: string;
   NEXTAUTH_SECRET: string;
+  /** Sign in with ORCID is offered when these three are set. */
+  ORCID_ISSUER?: string;
+  ORCID_CLIENT_ID?: string;
+  ORCID_CLIENT_SECRET?: string;
   LOG_LEVEL?: 'debug' | 'info' | 'warn' | 'error';
   /** Bytes, as a decimal string; lib/uploads/limits.ts reads it. */
   MAX_UPLOAD_BYTES?: string;

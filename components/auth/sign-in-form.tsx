@@ -14,6 +14,12 @@ const ERRORS: Record<string, string> = {
   CredentialsSignin: 'E-mail or password is wrong. Check both, or use a sign-in link.',
   EmailSignin: 'We could not send the sign-in link. Try again in a minute.',
   Verification: 'That sign-in link has expired or was already used. Ask for a new one.',
+  OAuthSignin: 'Signing in with ORCID did not start. Try again in a minute.',
+  OAuthCallback: 'Signing in with ORCID did not finish. Try again in a minute.',
+  orcid_email_unconfirmed: 'An Ohmstead account uses the e-mail address on your ORCID record but has not confirmed it. Sign in to it with a link by e-mail first, then sign in with ORCID to link the two.',
+  orcid_orcid_conflict: 'The Ohmstead account with the e-mail address on your ORCID record is linked to a different ORCID iD.',
+  orcid_account_disabled: 'This Ohmstead account is disabled. Ask the site admin.',
+  orcid_invalid_orcid: 'The identity provider did not send a valid ORCID iD.',
 };
 
 export function SignInForm({ callbackUrl, initialError }: SignInFormProps) {

@@ -1,5 +1,6 @@
 import Link from 'next/link';
 import type { ReactNode } from 'react';
+import type { UsageTotals } from '@/lib/counter/usage-totals';
 import type { LandingView } from '@/lib/datasets/landing-types';
 import { plural } from '@/lib/format/plural';
 import { CitationBox } from './citation-box';
@@ -63,10 +64,22 @@ export type DatasetLandingProps = {
   view: LandingView;
   /** Shown above everything, e.g. the reviewer view's "confidential review copy" band. */
   banner?: ReactNode;
+  /** COUNTER totals for this version, when the page counts visits (not in the reviewer view). */
+  usage?: UsageTotals;
 };
 
+function UsageNote({ usage }: { usage: UsageTotals }) {
+  return (
+    <section aria-labelledby="usage-heading" className="flex flex-col gap-1 rounded-lg border border-slate-200 bg-white p-4 text-sm text-slate-700">
+      <h2 id="usage-heading" className="font-semibold text-slate-900">Use of this version</h2>
+      <p className="tabular-nums">{plural(usage.investigations.unique, 'unique view')} · {plural(usage.requests.unique, 'unique download')}</p>
+      <p className="text-xs text-slate-600">Counted as in the COUNTER Code of Practice for Research Data: robots excluded, repeat clicks within 30 s count once.</p>
+    </section>
+  );
+}
+
 /** The whole dataset page below the site header: every section as getLandingView() allowed it. */
-export function DatasetLanding({ view, banner }: DatasetLandingProps) {
+export function DatasetLanding({ view, banner, usage }: DatasetLandingProps) {
   const { record } = view;
   const curvesLocked = view.withdrawal
     ? 'The curves and derived values left this page with the files when the version was withdrawn.'
@@ -89,6 +102,7 @@ export function DatasetLanding({ view, banner }: DatasetLandingProps) {
             {view.citations ? <CitationBox citations={view.citations} /> : <p className="text-sm text-slate-700">{view.citationNote}</p>}
           </section>
           <RecordExtras record={record} />
+          {usage && <UsageNote usage={usage} />}
         </aside>
         <div className="flex min-w-0 flex-col gap-10 lg:order-1">
           <Section id="overview" title="Overview">

@@ -7,6 +7,8 @@ import { recordAudit } from '@/lib/audit/record-audit';
 import { knexAdapter } from './repo-adapter';
 import { signInWithPassword } from './sign-in-with-password';
 import { sendSignInLink } from './send-sign-in-link';
+import { linkOrcidSignIn, OrcidSignInError } from '@/lib/users/link-orcid-account';
+import { claimsFromIdToken, ORCID_PROVIDER_ID, orcidProvider, type OrcidIdToken } from './orcid-provider';
 
 function clientIp(headers: Record<string, unknown> | undefined): string {
   const forwarded = headers?.['x-forwarded-for'];
@@ -14,7 +16,8 @@ function clientIp(headers: Record<string, unknown> | undefined): string {
 }
 
 export function authOptions(): NextAuthOptions {
-  const { NEXTAUTH_SECRET, MAIL_FROM } = env();
+  const { NEXTAUTH_SECRET, MAIL_FROM, NEXTAUTH_URL } = env();
+  const orcid = orcidProvider();
   return {
     secret: NEXTAUTH_SECRET,
     adapter: knexAdapter(),
@@ -35,8 +38,21 @@ export function authOptions(): NextAuthOptions {
         server: 'smtp://unused.invalid',
         sendVerificationRequest: ({ identifier, url }) => sendSignInLink(identifier, url),
       }),
+      ...(orcid ? [orcid] : []),
     ],
     callbacks: {
+      // Runs before next-auth looks the account up: links the ORCID iD to the right user (or makes one), so the
+      // adapter then finds it. Refusals go back to the sign-in page with a code it explains.
+      async signIn({ account, profile }) {
+        if (account?.provider !== ORCID_PROVIDER_ID) return true;
+        try {
+          await linkOrcidSignIn(claimsFromIdToken(profile as OrcidIdToken));
+          return true;
+        } catch (error) {
+          if (error instanceof OrcidSignInError) return `${NEXTAUTH_URL.replace(/\/$/, '')}/sign-in?error=orcid_${error.refusal}`;
+          throw error;
+        }
+      },
       async jwt({ token, user }) {
         if (user) {
           token.uid = user.id;

@@ -27,7 +27,11 @@ export function errorResponse(error: unknown, requestId: string, req?: Request):
     log('error', 'unhandled error', { requestId, path: req ? new URL(req.url).pathname : undefined, error: error instanceof Error ? error.stack : String(error) });
   }
   const body: ApiErrorBody = { error: { code: known.code, message: known.message, details: known.details, requestId } };
-  return Response.json(body, { status: known.status, headers: { 'x-request-id': requestId } });
+  const headers: Record<string, string> = { 'x-request-id': requestId };
+  // RFC 9110 §10.2.3: a 429 says when to come back.
+  const retry = known.details?.retryAfterSeconds;
+  if (known.code === 'rate_limited' && typeof retry === 'number') headers['retry-after'] = String(retry);
+  return Response.json(body, { status: known.status, headers });
 }
 
 function toAppError(error: unknown): AppError {

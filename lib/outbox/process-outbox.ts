@@ -3,6 +3,7 @@ import type { DoiClient } from '@/lib/doi/client';
 import { handleDoiReserve } from '@/lib/doi/reserve-draft-doi';
 import { log } from '@/lib/log';
 import { publishingOutboxHandlers } from '@/lib/publishing/outbox-handlers';
+import { reviewOutboxHandlers } from '@/lib/review/outbox-handlers';
 import { retryDelayMs } from './backoff';
 import { claimDue, claimFresh, markFailed, markProcessed, type OutboxRow } from './repo';
 
@@ -15,6 +16,7 @@ export function defaultOutboxHandlers(options: { doi?: DoiClient } = {}): Outbox
   return {
     'doi.reserve': (payload) => handleDoiReserve(payload, options.doi),
     ...publishingOutboxHandlers(),
+    ...reviewOutboxHandlers(),
   };
 }
 

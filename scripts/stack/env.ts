@@ -7,6 +7,8 @@ export const DATABASE_NAME: Record<Profile, string> = { dev: 'ohmstead', test: '
 export const S3_BUCKET = 'ohmstead';
 export const DOI_REPOSITORY_ID = 'OHM.HUB';
 export const DOI_PREFIX = '10.80123';
+/** The app's client id at the local ORCID sign-in fake (its secret is generated per data dir). */
+export const ORCID_CLIENT_ID = 'APP-OHMSTEAD-LOCAL';
 
 export type StackEnv = Record<string, string>;
 
@@ -18,6 +20,7 @@ export function buildEnv(profile: Profile, ports: Ports, layout: DataLayout, sec
     S3_PORT: String(ports.S3_PORT),
     SMTP_PORT: String(ports.SMTP_PORT),
     DOI_PORT: String(ports.DOI_PORT),
+    ORCID_PORT: String(ports.ORCID_PORT),
     DATABASE_URL: `mysql://root@127.0.0.1:${ports.DB_PORT}/${DATABASE_NAME[profile]}`,
     S3_ENDPOINT: `http://127.0.0.1:${ports.S3_PORT}`,
     S3_REGION: 'us-east-1',
@@ -31,6 +34,9 @@ export function buildEnv(profile: Profile, ports: Ports, layout: DataLayout, sec
     DOI_REPOSITORY_ID,
     DOI_PASSWORD: secrets.DOI_PASSWORD,
     DOI_PREFIX,
+    ORCID_ISSUER: `http://127.0.0.1:${ports.ORCID_PORT}`,
+    ORCID_CLIENT_ID,
+    ORCID_CLIENT_SECRET: secrets.ORCID_CLIENT_SECRET,
     NEXTAUTH_URL: `http://localhost:${ports.PORT}`,
     NEXTAUTH_SECRET: secrets.NEXTAUTH_SECRET,
     NODE_ENV: profile === 'test' ? 'test' : 'production',

@@ -1,4 +1,4 @@
-// startStack: MariaDB, s3rver, the SMTP fake and the DOI fake for one profile, started together, then the worker;
+// startStack: MariaDB, s3rver, the SMTP, DOI and ORCID fakes for one profile, started together, then the worker;
 // stopped in order.
 import { mkdirSync, rmSync } from 'node:fs';
 import { buildEnv, DATABASE_NAME, S3_BUCKET, type StackEnv } from './env';
@@ -78,6 +78,7 @@ export async function startStack(profile: Profile, opts: StackOptions): Promise<
     })),
     timed('smtp', `on ${env.SMTP_URL}`, log, fake('smtp', 'scripts/fakes/smtp-fake.ts', {})),
     timed('doi', `on ${env.DOI_API_URL}`, log, fake('doi', 'scripts/fakes/doi-fake.ts', { DOI_DIR: layout.doi })),
+    timed('orcid', `on ${env.ORCID_ISSUER}`, log, fake('orcid', 'scripts/fakes/orcid-fake.ts', {})),
   ]);
   const services = attempts.flatMap((a) => (a.status === 'fulfilled' ? [a.value] : []));
   const failures = attempts.flatMap((a) => (a.status === 'rejected' ? [a.reason as unknown] : []));

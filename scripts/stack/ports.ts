@@ -2,13 +2,13 @@
 import net from 'node:net';
 import type { Profile } from './layout';
 
-export const PORT_VARIABLES = ['PORT', 'DB_PORT', 'S3_PORT', 'SMTP_PORT', 'DOI_PORT'] as const;
+export const PORT_VARIABLES = ['PORT', 'DB_PORT', 'S3_PORT', 'SMTP_PORT', 'DOI_PORT', 'ORCID_PORT'] as const;
 export type PortVariable = (typeof PORT_VARIABLES)[number];
 export type Ports = Record<PortVariable, number>;
 
 export const DEFAULT_PORTS: Record<Profile, Ports> = {
-  dev: { PORT: 3000, DB_PORT: 3307, S3_PORT: 4568, SMTP_PORT: 2525, DOI_PORT: 4610 },
-  test: { PORT: 3101, DB_PORT: 3317, S3_PORT: 4578, SMTP_PORT: 2535, DOI_PORT: 4620 },
+  dev: { PORT: 3000, DB_PORT: 3307, S3_PORT: 4568, SMTP_PORT: 2525, DOI_PORT: 4610, ORCID_PORT: 4630 },
+  test: { PORT: 3101, DB_PORT: 3317, S3_PORT: 4578, SMTP_PORT: 2535, DOI_PORT: 4620, ORCID_PORT: 4640 },
 };
 
 export const PORT_SERVICE: Record<PortVariable, string> = {
@@ -17,6 +17,7 @@ export const PORT_SERVICE: Record<PortVariable, string> = {
   S3_PORT: 's3rver (object storage)',
   SMTP_PORT: 'the SMTP fake',
   DOI_PORT: 'the DOI fake',
+  ORCID_PORT: 'the ORCID sign-in fake',
 };
 
 export class ConfigError extends Error {}

@@ -1,7 +1,9 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { OrcidSignInButton } from '@/components/auth/orcid-sign-in-button';
 import { SignInForm } from '@/components/auth/sign-in-form';
 import { PageTitle } from '@/components/ui/page-title';
+import { orcidConfigured } from '@/lib/auth/orcid-provider';
 
 export const metadata: Metadata = { title: 'Sign in' };
 
@@ -16,6 +18,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
     <div className="mx-auto max-w-4xl">
       <PageTitle lead={<>New to Ohmstead? <Link href="/sign-up" className="text-copper-700 underline">Create an account</Link>.</>}>Sign in</PageTitle>
       <SignInForm callbackUrl={safeCallback(callbackUrl)} initialError={error} />
+      {orcidConfigured() && <OrcidSignInButton callbackUrl={safeCallback(callbackUrl)} />}
     </div>
   );
 }

@@ -38,7 +38,7 @@ describe('port checks', () => {
   });
 
   it('takes overrides from the environment and rejects bad or duplicate ports', () => {
-    expect(resolvePorts('test', {})).toEqual({ PORT: 3101, DB_PORT: 3317, S3_PORT: 4578, SMTP_PORT: 2535, DOI_PORT: 4620 });
+    expect(resolvePorts('test', {})).toEqual({ PORT: 3101, DB_PORT: 3317, S3_PORT: 4578, SMTP_PORT: 2535, DOI_PORT: 4620, ORCID_PORT: 4640 });
     expect(resolvePorts('dev', { DB_PORT: '3399' }).DB_PORT).toBe(3399);
     expect(() => resolvePorts('dev', { SMTP_PORT: 'abc' })).toThrow('SMTP_PORT=abc is not a TCP port');
     expect(() => resolvePorts('dev', { DOI_PORT: '3307' })).toThrow('DB_PORT and DOI_PORT are both 3307');

@@ -8,6 +8,13 @@ import { getLandingView, landingActorFor } from '@/lib/datasets/get-landing-view
 import type { LandingView } from '@/lib/datasets/landing-types';
 import { resolveLandingVersion } from '@/lib/datasets/resolve-landing-version';
 import { AppError } from '@/lib/errors';
+import { recordUsage } from '@/lib/counter/record-usage';
+import { viewerFromHeaders } from '@/lib/counter/request-source';
+import { getVersionUsage } from '@/lib/counter/usage-report';
+import type { UsageTotals } from '@/lib/counter/usage-totals';
+import { log } from '@/lib/log';
+import { noteEmbargoEndIfDue } from '@/lib/publishing/notify-embargo-end';
+import { headers } from 'next/headers';
 
 function versionNumberOf(text: string | undefined): number | undefined {
   if (text === undefined) return undefined;
@@ -66,4 +73,21 @@ export async function landingMetadata(datasetId: string, versionNumber?: string)
     // Drafts and versions in review are seen only by their group; search engines never should.
     robots: isPublic ? undefined : { index: false, follow: false },
   };
+}
+
+/**
+ * Side effects of opening a landing page: one COUNTER investigation, and the embargo-ended mail on the first
+ * access after the date. Neither may break the page, so failures are logged only.
+ */
+export async function noteLandingVisit(view: LandingView): Promise<UsageTotals | undefined> {
+  const versionId = view.version.id;
+  try {
+    const user = await currentUser();
+    await recordUsage({ versionId, kind: 'investigation', viewer: viewerFromHeaders(await headers(), user?.id ?? null) });
+    await noteEmbargoEndIfDue(versionId);
+    return await getVersionUsage(versionId);
+  } catch (error) {
+    log('warn', 'landing visit not recorded', { versionId, error: error instanceof Error ? error.message : String(error) });
+    return undefined;
+  }
 }

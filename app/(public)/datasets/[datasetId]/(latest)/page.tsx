@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { DatasetLanding } from '@/components/dataset/dataset-landing';
-import { landingMetadata, loadLanding } from '../load-landing';
+import { landingMetadata, loadLanding, noteLandingVisit } from '../load-landing';
 
 export const dynamic = 'force-dynamic';
 
@@ -12,5 +12,6 @@ export async function generateMetadata({ params }: Params): Promise<Metadata> {
 
 /** A dataset's page: its latest published version, or the latest one this viewer may open. */
 export default async function DatasetPage({ params }: Params) {
-  return <DatasetLanding view={await loadLanding((await params).datasetId)} />;
+  const view = await loadLanding((await params).datasetId);
+  return <DatasetLanding view={view} usage={await noteLandingVisit(view)} />;
 }

@@ -1,6 +1,6 @@
 import type { Metadata } from 'next';
 import { DatasetLanding } from '@/components/dataset/dataset-landing';
-import { landingMetadata, loadLanding } from '../../load-landing';
+import { landingMetadata, loadLanding, noteLandingVisit } from '../../load-landing';
 
 export const dynamic = 'force-dynamic';
 
@@ -14,5 +14,6 @@ export async function generateMetadata({ params }: Params): Promise<Metadata> {
 /** One version of a dataset (what its version DOI resolves to). */
 export default async function DatasetVersionPage({ params }: Params) {
   const { datasetId, versionNumber } = await params;
-  return <DatasetLanding view={await loadLanding(datasetId, versionNumber)} />;
+  const view = await loadLanding(datasetId, versionNumber);
+  return <DatasetLanding view={view} usage={await noteLandingVisit(view)} />;
 }
