@@ -20,7 +20,7 @@ export default async function HomePage() {
           <label htmlFor="home-search" className="sr-only">Search published datasets</label>
           <input id="home-search" name="q" type="search" placeholder="e.g. NbSe2 sheet resistance, van der Pauw, 2–300 K"
             className="flex-1 rounded-md border border-slate-600 bg-slate-950/40 px-3 py-2 text-slate-100 placeholder:text-slate-400" />
-          <button type="submit" className="rounded-md bg-copper-500 px-4 py-2 font-semibold text-white hover:bg-copper-600">Search</button>
+          <button type="submit" className="rounded-md bg-copper-700 px-4 py-2 font-semibold text-white hover:bg-copper-800">Search</button>
         </form>
       </section>
 

@@ -2,6 +2,7 @@
 
 import dynamic from 'next/dynamic';
 import { useId, useState } from 'react';
+import { AddToCompareButton } from '@/components/compare/add-to-compare-button';
 import { displayScale } from '@/lib/format/quantity';
 import type { LandingCurves, UnitOption } from '@/lib/datasets/landing-types';
 import type { CurvePreview } from '@/lib/transport/summary/types';
@@ -12,7 +13,11 @@ const CurvePlot = dynamic(() => import('@/components/plot/curve-plot').then((m) 
   loading: () => <div className="flex h-[360px] items-center justify-center rounded-md bg-slate-50 text-sm text-slate-600">Loading the plot…</div>,
 });
 
-export type CurvesPanelProps = { curves: LandingCurves };
+export type CurvesPanelProps = {
+  curves: LandingCurves;
+  /** Set on published versions: offers the shown curve to the compare basket. */
+  compareVersionId?: string;
+};
 
 const AUTO = 'auto';
 const SELECT = 'w-full rounded-md border border-slate-400 bg-white px-2 py-1.5 text-sm sm:w-auto';
@@ -56,7 +61,7 @@ function UnitSelect({ label, siUcum, value, options, onChange }: {
 }
 
 /** The analysed files' curves: file, x and y axes, display units per quantity, and log scales. */
-export function CurvesPanel({ curves }: CurvesPanelProps) {
+export function CurvesPanel({ curves, compareVersionId }: CurvesPanelProps) {
   const ids = { file: useId(), x: useId(), y: useId() };
   const [fileId, setFileId] = useState(curves.files[0]?.fileId ?? '');
   const [xName, setXName] = useState<string | null>(null);
@@ -122,6 +127,9 @@ export function CurvesPanel({ curves }: CurvesPanelProps) {
       </fieldset>
       <CurvePlot points={view.points} xName={curveName(preview, 'x')} yName={curveName(preview, 'y')} xUnit={view.xs.label}
         yUnit={view.ys.label} logX={logX} logY={logY} sourcePoints={preview.sourcePoints} />
+      {compareVersionId && (
+        <div><AddToCompareButton versionId={compareVersionId} fileId={file.fileId} x={preview.x} y={preview.y} label="Add this curve to compare" /></div>
+      )}
     </div>
   );
 }

@@ -113,7 +113,7 @@ export function DatasetLanding({ view, banner, usage }: DatasetLandingProps) {
             <RecordCards record={record} />
           </Section>
           <Section id="curves" title="Curves">
-            {view.curves ? (view.curves.files.length > 0 ? <CurvesPanel curves={view.curves} /> : <NoAnalysis view={view} what="curves" />)
+            {view.curves ? (view.curves.files.length > 0 ? <CurvesPanel curves={view.curves} compareVersionId={view.version.state === 'published' && !banner ? view.version.id : undefined} /> : <NoAnalysis view={view} what="curves" />)
               : <Locked>{curvesLocked}</Locked>}
           </Section>
           <Section id="derived" title="Derived quantities and quality flags">

@@ -6,6 +6,7 @@ import { UserMenu } from './user-menu';
 const NAV = [
   { href: '/search', label: 'Search' },
   { href: '/groups', label: 'Groups' },
+  { href: '/compare', label: 'Compare' },
 ];
 
 export async function SiteHeader() {

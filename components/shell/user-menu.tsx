@@ -10,7 +10,7 @@ export function UserMenu({ user }: UserMenuProps) {
     return (
       <div className="flex items-center gap-2 text-sm">
         <Link href="/sign-in" className="rounded-md px-3 py-1.5 font-medium text-slate-100 hover:bg-slate-700">Sign in</Link>
-        <Link href="/sign-up" className="rounded-md bg-copper-500 px-3 py-1.5 font-semibold text-white hover:bg-copper-600">Create account</Link>
+        <Link href="/sign-up" className="rounded-md bg-copper-700 px-3 py-1.5 font-semibold text-white hover:bg-copper-800">Create account</Link>
       </div>
     );
   }
