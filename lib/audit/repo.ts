@@ -1,4 +1,5 @@
 import 'server-only';
+import type { Knex } from 'knex';
 import { db } from '@/lib/db';
 
 export type AuditEntry = {
@@ -12,8 +13,9 @@ export type AuditEntry = {
   details?: Record<string, unknown> | null;
 };
 
-export async function insertAudit(entry: AuditEntry): Promise<void> {
-  await db()('audit_log').insert({
+/** Writes one entry; pass a transaction so the entry commits (or not) with the change it records. */
+export async function insertAudit(entry: AuditEntry, conn: Knex | Knex.Transaction = db()): Promise<void> {
+  await conn('audit_log').insert({
     action: entry.action,
     actor_kind: entry.actorKind,
     actor_user_id: entry.actorUserId ?? null,

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next';
 import Link from 'next/link';
+import { Notice } from '@/components/ui/notice';
 import { PageTitle } from '@/components/ui/page-title';
 import { currentUser } from '@/lib/auth/session';
 import { groupsOfUser, listGroups, listMembers } from '@/lib/groups/repo';
@@ -8,19 +9,26 @@ import { RoleBadge } from '@/components/groups/role-badge';
 export const metadata: Metadata = { title: 'Groups' };
 export const dynamic = 'force-dynamic';
 
-export default async function GroupsPage() {
+export default async function GroupsPage({ searchParams }: { searchParams: Promise<{ left?: string | string[] }> }) {
   const user = await currentUser();
   const [groups, mine] = await Promise.all([listGroups(), user ? groupsOfUser(user.id) : Promise.resolve([])]);
+  // Named from the database, not the query, so a crafted link cannot put words on the page.
+  const leftSlug = (await searchParams).left;
+  const left = typeof leftSlug === 'string' ? groups.find((g) => g.slug === leftSlug && !mine.some((m) => m.id === g.id))?.name : undefined;
   const members = await Promise.all(groups.map((g) => listMembers(g.id)));
   const myRole = new Map(mine.map((g) => [g.id, g.role]));
   return (
     <div>
-      <PageTitle lead="The labs that deposit in Ohmstead. Owners manage members; curators approve what the group publishes.">Groups</PageTitle>
+      <div className="flex flex-wrap items-start justify-between gap-4">
+        <PageTitle lead="The labs that deposit in Ohmstead. Owners manage members; curators approve what the group publishes.">Groups</PageTitle>
+        {user && <Link href="/groups/new" className="rounded-md bg-copper-600 px-4 py-2 text-sm font-semibold text-white hover:bg-copper-700">Create a group</Link>}
+      </div>
+      {left && <div className="mb-6"><Notice tone="success">You left {left}.</Notice></div>}
       {user && (
         <section aria-labelledby="mine" className="mb-8">
           <h2 id="mine" className="mb-2 text-lg font-semibold">Your groups</h2>
           {mine.length === 0 ? (
-            <p className="text-slate-600">You are not in a group yet. Ask a group owner to invite you.</p>
+            <p className="text-slate-600">You are not in a group yet. Ask a group owner to invite you, or <Link href="/groups/new" className="text-copper-700 underline">create a group</Link>.</p>
           ) : (
             <ul className="flex flex-wrap gap-2">
               {mine.map((g) => (
