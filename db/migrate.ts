@@ -1,5 +1,5 @@
 // Runs Knex migrations (and, with --seed, the demo seed) against DATABASE_URL.
-// Used by `npm start`, `npm test` and by hand: `npx tsx db/migrate.ts [--seed]`.
+// Used by `npm start`, `npm test` and by hand: `node --conditions=react-server --import tsx db/migrate.ts [--seed]`.
 import knexFactory from 'knex';
 import { knexConfig } from '../knexfile';
 import { assertLoopbackDatabase } from './loopback-guard';
@@ -21,7 +21,8 @@ async function main(): Promise<void> {
   }
 }
 
-main().catch((error: unknown) => {
+// The demo seed uses the app's own pools (database, storage) through lib/; they would keep the process alive.
+main().then(() => process.exit(0), (error: unknown) => {
   console.error(`migrate failed: ${error instanceof Error ? error.message : String(error)}`);
   process.exit(1);
 });

@@ -35,7 +35,7 @@ async function uploadFile(author: DemoActor, versionId: string, file: DemoUpload
   for (const part of begun.parts) {
     const start = (part.partNumber - 1) * begun.partSizeBytes;
     const body = file.bytes.subarray(start, Math.min(start + begun.partSizeBytes, file.bytes.byteLength));
-    const res = await fetch(part.url, { method: 'PUT', body });
+    const res = await fetch(part.url, { method: 'PUT', body: Buffer.from(body) });
     if (!res.ok) throw new Error(`demo upload of ${file.name} part ${part.partNumber}: storage answered ${res.status}`);
     parts.push({ partNumber: part.partNumber, etag: res.headers.get('etag') ?? '' });
   }

@@ -1,7 +1,7 @@
 // Steps between the services and the app: migrations (the lead's db/migrate.ts) and the demo-account banner.
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
-import { bin, runForeground } from './foreground';
+import { runForeground } from './foreground';
 import type { Stack } from './index';
 import { projectRoot } from './layout';
 
@@ -17,7 +17,8 @@ export async function migrate(stack: Stack, seed: boolean): Promise<StepOutcome>
   }
   const args = [MIGRATE_SCRIPT, ...(seed ? ['--seed'] : [])];
   console.log(`$ tsx db/migrate.ts${seed ? ' --seed' : ''}`);
-  const r = await runForeground(bin('tsx'), args, { ...process.env, ...stack.env });
+  // The demo seed deposits through lib/ operations, which are marked 'server-only': resolve them as the server does.
+  const r = await runForeground(process.execPath, ['--conditions=react-server', '--import', 'tsx', ...args], { ...process.env, ...stack.env });
   return { ok: r.code === 0, seconds: r.seconds, note: r.code === 0 ? undefined : `exit code ${r.code}` };
 }
 
