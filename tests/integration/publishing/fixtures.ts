@@ -137,7 +137,11 @@ export async function drainJobs(versionId: string, handlers: OutboxHandlers, rou
   for (let i = 0; i < rounds; i++) {
     const open = db()('outbox').where('aggregate_id', versionId).whereIn('topic', Object.keys(handlers)).whereNull('processed_at');
     if (!(await open.clone().first('id'))) return;
-    await open.clone().update({ next_attempt_at: db().raw('UTC_TIMESTAMP(3) - INTERVAL 1 SECOND') });
+    // Only jobs held for their creator or waiting after a failure: a job the worker has leased is left to it,
+    // else both would run it (the lease is what keeps a mail from going out twice).
+    await open.clone().where((w) => w.where('attempts', 0).orWhereNotNull('last_error'))
+      .update({ next_attempt_at: db().raw('UTC_TIMESTAMP(3) - INTERVAL 1 SECOND') });
+    await new Promise((resolve) => setTimeout(resolve, i === 0 ? 0 : 250));
     await processOutboxOnce(handlers, { limit: 100 });
   }
 }
