@@ -7,6 +7,7 @@ const NAV = [
   { href: '/search', label: 'Search' },
   { href: '/groups', label: 'Groups' },
   { href: '/compare', label: 'Compare' },
+  { href: '/api-docs', label: 'API' },
 ];
 
 export async function SiteHeader() {
