@@ -45,7 +45,7 @@ async function main(): Promise<void> {
   const info = await stat(args.file).catch(() => undefined);
   if (!info?.isFile()) throw new UsageError(`${args.file}: no such file`);
   const metadata = args.meta ? await loadMetadata(args.meta) : undefined;
-  const summary = await summariseFile(createReadStream(args.file), { metadata, fileName: path.basename(args.file) });
+  const summary = await summariseFile(createReadStream(args.file), { metadata, fileName: path.basename(args.file), sizeBytes: info.size });
   process.stdout.write(`${JSON.stringify(summary, null, args.pretty ? 2 : undefined)}\n`);
 }
 

@@ -8,6 +8,8 @@ export type SummariseFileOptions = {
   metadata?: TransportDatasetDraft;
   fileName?: string;
   limits?: Pick<ParseOptions, 'maxBytes' | 'maxLineBytes' | 'maxRows'>;
+  /** The source's size in bytes when known (file or object size): lets the parser allocate the columns once. */
+  sizeBytes?: number;
   previewPoints?: number;
   encoding?: string;
   signal?: AbortSignal;
@@ -29,6 +31,7 @@ export async function summariseFile(source: ByteSource, options: SummariseFileOp
     ...options.limits,
     columns: overrides(options.metadata),
     encoding: options.encoding,
+    sizeBytes: options.sizeBytes,
     signal: options.signal,
     onProgress: options.onProgress,
   });

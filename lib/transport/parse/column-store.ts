@@ -1,34 +1,55 @@
-// Growable column of doubles in fixed-size chunks, so appending never copies what is already stored.
-const CHUNK = 1 << 16;
+// Numeric columns filled row by row, in blocks: a full block is kept as it is and a larger one follows, so appending
+// never copies what is stored. With a good size estimate there is one block and `finish` copies nothing either.
+export const FIRST_BLOCK_ROWS = 4096;
+const MAX_BLOCK_ROWS = 1 << 20;
 
-export class ColumnStore {
-  private chunks: Float64Array[] = [];
-  private current = new Float64Array(CHUNK);
-  private pos = 0;
-  length = 0;
+export class ColumnSet {
+  /** The current block of each column: write a row's values at index `pos` (after `reserve()`), then `commit()`. */
+  blocks: Float64Array[];
+  pos = 0;
+  private capacity: number;
+  private filled: Float64Array[][];
+  private filledRows = 0;
 
-  push(value: number): void {
-    if (this.pos === CHUNK) {
-      this.chunks.push(this.current);
-      this.current = new Float64Array(CHUNK);
-      this.pos = 0;
-    }
-    this.current[this.pos++] = value;
-    this.length++;
+  constructor(columns: number, firstBlockRows = FIRST_BLOCK_ROWS) {
+    this.capacity = Math.max(1, Math.floor(firstBlockRows));
+    this.blocks = Array.from({ length: columns }, () => new Float64Array(this.capacity));
+    this.filled = Array.from({ length: columns }, () => []);
   }
 
-  /** One contiguous array of exactly `length` values; the store is emptied to free its chunks. */
-  finish(): Float64Array {
+  get length(): number {
+    return this.filledRows + this.pos;
+  }
+
+  /** Makes room for one more row. */
+  reserve(): void {
+    if (this.pos < this.capacity) return;
+    this.blocks.forEach((block, k) => this.filled[k].push(block));
+    this.filledRows += this.capacity;
+    this.capacity = Math.min(MAX_BLOCK_ROWS, Math.max(FIRST_BLOCK_ROWS, 2 * this.capacity));
+    this.blocks = this.blocks.map(() => new Float64Array(this.capacity));
+    this.pos = 0;
+  }
+
+  commit(): void {
+    this.pos++;
+  }
+
+  /** Column k as one array of exactly `length` values (a view of the block when it holds them all). */
+  finish(k: number): Float64Array {
+    const block = this.blocks[k];
+    if (this.filled[k].length === 0) {
+      // Untouched pages of an over-estimated block cost no memory; copy only when most of it is unused.
+      return this.pos === this.capacity ? block : this.pos >= this.capacity / 2 ? block.subarray(0, this.pos) : block.slice(0, this.pos);
+    }
     const out = new Float64Array(this.length);
     let offset = 0;
-    for (const c of this.chunks) {
-      out.set(c, offset);
-      offset += CHUNK;
+    for (const b of this.filled[k]) {
+      out.set(b, offset);
+      offset += b.length;
     }
-    out.set(this.current.subarray(0, this.pos), offset);
-    this.chunks = [];
-    this.current = new Float64Array(0);
-    this.pos = 0;
+    out.set(block.subarray(0, this.pos), offset);
+    this.filled[k] = [];
     return out;
   }
 }

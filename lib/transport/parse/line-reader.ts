@@ -1,9 +1,22 @@
+import { ByteLineSplitter, isAsciiCompatible, lineDecoder, type FastLineSink } from './byte-lines';
 import { createDecoder, detectEncoding, SNIFF_BYTES, type StreamDecoder } from './encoding';
 import { TransportParseError } from './errors';
+import { readAhead } from './sources';
 import type { ByteSource } from './types';
 
 /** Receives s[start, end) as one line (no line break); returns false to stop reading. */
-export type LineSink = (s: string, start: number, end: number, lineNo: number) => boolean;
+export type TextLineSink = (s: string, start: number, end: number, lineNo: number) => boolean;
+
+/**
+ * Where lines go. `bytes` (optional) takes lines of ASCII-compatible encodings undecoded, with `decode` for the lines
+ * it wants as text; without it, or for other encodings (UTF-16), every line comes to `text`.
+ */
+export type LineSink = {
+  text: TextLineSink;
+  bytes?: (bytes: Uint8Array, start: number, end: number, lineNo: number, decode: (bytes: Uint8Array, start: number, end: number) => string) => boolean;
+  /** With `bytes`: takes whole plain lines straight from the chunk (see FastLineSink). */
+  fastRow?: FastLineSink;
+};
 
 export type ReadLinesOptions = {
   encoding?: string;
@@ -44,6 +57,7 @@ export async function readLines(source: ByteSource, options: ReadLinesOptions, s
   let replacementChars = false;
   const sniff: Uint8Array[] = [];
   let sniffLength = 0;
+  let splitter: ByteLineSplitter | undefined;
 
   const feed = (text: string, final: boolean): void => {
     if (first && text.length > 0) {
@@ -64,7 +78,7 @@ export async function readLines(source: ByteSource, options: ReadLinesOptions, s
       const sepChar = mode === 'lf' ? '\n' : '\r';
       for (let q = s.indexOf(sepChar, p); q >= 0; q = s.indexOf(sepChar, p)) {
         const end = sep === LF && q > p && s.charCodeAt(q - 1) === CR ? q - 1 : q;
-        if (!sink(s, p, end, lineNo++)) {
+        if (!sink.text(s, p, end, lineNo++)) {
           stopped = true;
           tail = '';
           return;
@@ -81,7 +95,7 @@ export async function readLines(source: ByteSource, options: ReadLinesOptions, s
       );
     }
     if (final && tail.length > 0) {
-      if (!sink(tail, 0, tail.length, lineNo++)) stopped = true;
+      if (!sink.text(tail, 0, tail.length, lineNo++)) stopped = true;
       tail = '';
     }
   };
@@ -93,22 +107,38 @@ export async function readLines(source: ByteSource, options: ReadLinesOptions, s
       encodingReason = guess.how;
     }
     decoder = createDecoder(encoding);
+    const bytesSink = sink.bytes;
+    if (bytesSink && isAsciiCompatible(encoding)) {
+      const decode = lineDecoder(encoding, () => (replacementChars = true));
+      const utf8 = encoding.toLowerCase().replace(/[-_]/g, '') === 'utf8';
+      splitter = new ByteLineSplitter(options.maxLineBytes, utf8, (b, start, end, no) => bytesSink(b, start, end, no, decode), sink.fastRow);
+      write(bytes, false);
+      return;
+    }
     bytesPerChar = encoding.toLowerCase().startsWith('utf-16') || encoding.toLowerCase() === 'ucs2' ? 2 : 1;
     feed(decoder.write(bytes), false);
   };
 
+  const write = (bytes: Uint8Array, final: boolean) => {
+    if (splitter) {
+      splitter.write(bytes, final);
+      stopped = splitter.stopped;
+    } else if (decoder) feed(final ? decoder.write(bytes) + decoder.end() : decoder.write(bytes), final);
+  };
+
   try {
-    for await (const chunk of source) {
+    for await (const chunk of readAhead(source)) {
       if (options.signal?.aborted) throw new TransportParseError('aborted', 'Reading the file was cancelled.');
       bytesRead += chunk.length;
       if (bytesRead > options.maxBytes) {
-        throw new TransportParseError('too-large', `The file is over the configured size limit of ${options.maxBytes} bytes.`);
+        const line = splitter ? splitter.lineNo : lineNo;
+        throw new TransportParseError('too-large', `The file is over the configured size limit of ${options.maxBytes} bytes (reading stopped in line ${line}).`, line);
       }
       if (!decoder) {
         sniff.push(chunk);
         sniffLength += chunk.length;
         if (sniffLength >= SNIFF_BYTES) startDecoding(concat(sniff, sniffLength), false);
-      } else feed(decoder.write(chunk), false);
+      } else write(chunk, false);
       options.onProgress?.(bytesRead);
       if (stopped) break;
     }
@@ -116,10 +146,10 @@ export async function readLines(source: ByteSource, options: ReadLinesOptions, s
     if (e instanceof TransportParseError) throw e;
     throw new TransportParseError('read-failed', `The file could not be read: ${e instanceof Error ? e.message : String(e)}`);
   }
-  if (bytesRead === 0) throw new TransportParseError('empty', 'The file is empty.');
+  if (bytesRead === 0) throw new TransportParseError('empty', 'The file is empty: line 1 has no bytes at all.', 1);
   if (!stopped) {
     if (!decoder) startDecoding(concat(sniff, sniffLength), true);
-    if (!stopped && decoder) feed(decoder.end(), true);
+    if (!stopped) write(new Uint8Array(0), true);
   }
-  return { encoding, encodingReason, bytesRead, replacementChars, stopped };
+  return { encoding, encodingReason, bytesRead, replacementChars, stopped: stopped || Boolean(splitter?.stopped) };
 }

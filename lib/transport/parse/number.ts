@@ -8,6 +8,7 @@ export const CELL_MISSING = 2;
 export const CELL_TEXT = 3;
 export type CellKind = typeof CELL_NUMBER | typeof CELL_BLANK | typeof CELL_MISSING | typeof CELL_TEXT;
 
+const EXACT_LIMIT = 2 ** 53; // integers below it are exact doubles
 const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
 const MISSING_WORDS = new Set(['nan', '-nan', '+nan', 'na', 'n/a', '--', '-', '---', 'null', 'none', '?', '*']);
 
@@ -84,7 +85,8 @@ export class NumberReader {
     if (i !== end) return this.notANumber(s, start, end);
     this.kind = CELL_NUMBER;
     exponent += shift;
-    if (significant > 15 || exponent > 22 || exponent < -22) {
+    // ByteRowReader applies the same condition, so both paths give bit-identical values.
+    if (mantissa >= EXACT_LIMIT || exponent > 22 || exponent < -22) {
       const raw = s.slice(start, end);
       const text = decimalCode === 46 ? raw : raw.replace(',', '.');
       if (shift === 0) return Number(text);

@@ -24,7 +24,7 @@ export async function parseTransportTable(source: ByteSource, options: ParseOpti
       signal: options.signal,
       onProgress: options.onProgress,
     },
-    builder.line,
+    { text: builder.line, bytes: builder.bytesLine, fastRow: builder.fastRow },
   );
   builder.end();
   if (read.replacementChars) {

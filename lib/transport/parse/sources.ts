@@ -31,3 +31,28 @@ export function bytesFromWebStream(stream: ReadableStream<Uint8Array>): ByteSour
 }
 
 // Node Readable streams are already AsyncIterable<Buffer> (Buffer is a Uint8Array): pass them as they are.
+
+/**
+ * The source's chunks, asking for the next one before handing out the current, so that reading (a file, a socket)
+ * overlaps parsing instead of waiting for it. A source must not reuse a chunk's memory for the next one.
+ */
+export async function* readAhead(source: ByteSource): AsyncGenerator<Uint8Array, void, undefined> {
+  const it = source[Symbol.asyncIterator]();
+  let finished = false;
+  let pending = it.next();
+  try {
+    for (;;) {
+      const r = await pending;
+      if (r.done) {
+        finished = true;
+        return;
+      }
+      pending = it.next();
+      pending.catch(() => undefined); // a failure surfaces at the next await, not as an unhandled rejection meanwhile
+      yield r.value;
+    }
+  } finally {
+    // Stopped early (row limit, error, cancel): close the source as for-await would.
+    if (!finished) await Promise.resolve(it.return?.()).catch(() => undefined);
+  }
+}

@@ -1,6 +1,8 @@
+import { lineBreakAt } from './byte-lines';
+import { ByteRowReader } from './byte-row';
 import { cellBounds, looksLikeData } from './cells';
 import { mapColumn, type ColumnMapping } from './column-mapping';
-import { ColumnStore } from './column-store';
+import { ColumnSet, FIRST_BLOCK_ROWS } from './column-store';
 import { detectLayout, type Layout } from './delimiter';
 import { TransportParseError } from './errors';
 import { splitHeaderCell } from './header';
@@ -13,6 +15,8 @@ import { WarningLog } from './warnings';
 const SAMPLE_LINES = 20;
 const MAX_PREAMBLE_LINES = 20_000;
 const MAX_PREAMBLE_CHARS = 8 * 1024 * 1024;
+// A size estimate never allocates more than this many rows at once (128 MiB per column); more rows grow in blocks.
+const MAX_EXPECTED_ROWS = 1 << 24;
 
 export type ColumnSpec = { index: number; name: string; rawHeader: string; unitText: string | null; mapping: ColumnMapping };
 
@@ -33,7 +37,7 @@ export class TableBuilder {
   firstDataLine = 0;
   rowCount = 0;
   truncated = false;
-  private stores: ColumnStore[] = [];
+  private set = new ColumnSet(0);
   private buffer: BufferedLine[] = [];
   private bufferChars = 0;
   private run = 0;
@@ -46,8 +50,31 @@ export class TableBuilder {
   private decimalCode = 46;
   private shifts = new Int8Array(0);
   private commentSemicolon = true;
+  private fast: ByteRowReader | undefined;
 
   constructor(private readonly options: ParseOptions) {}
+
+  /** Sink for lines as bytes (ASCII-compatible encodings): plain numeric rows are read undecoded, the rest as text. */
+  bytesLine = (b: Uint8Array, start: number, end: number, no: number, decode: (b: Uint8Array, start: number, end: number) => string): boolean => {
+    if (this.fast !== undefined) {
+      this.set.reserve();
+      if (this.fast.readRow(b, start, this.set.blocks, this.set.pos) === end) return this.commitRow();
+    }
+    const text = decode(b, start, end);
+    return this.line(text, 0, text.length, no);
+  };
+
+  /** FastLineSink: a plain numeric row read straight from the chunk; -1 leaves the line (and the row limit) to bytesLine. */
+  fastRow = (b: Uint8Array, start: number, sep: number): number => {
+    const fast = this.fast;
+    if (fast === undefined || (this.options.maxRows !== undefined && this.rowCount + 1 >= this.options.maxRows)) return -1;
+    const set = this.set;
+    set.reserve();
+    const stop = fast.readRow(b, start, set.blocks, set.pos);
+    const lineBreak = stop < 0 ? -1 : lineBreakAt(b, stop, sep);
+    if (lineBreak >= 0) this.commitRow();
+    return lineBreak;
+  };
 
   /** Sink for readLines; false stops reading (row limit reached). */
   line = (s: string, start: number, end: number, no: number): boolean => {
@@ -78,13 +105,16 @@ export class TableBuilder {
       this.configure();
       return;
     }
-    if (!this.nonBlankSeen) throw new TransportParseError('empty', 'The file contains no text, only blank lines.');
+    const lastLine = this.buffer[this.buffer.length - 1]?.no ?? 1;
+    if (!this.nonBlankSeen) throw new TransportParseError('empty', `The file contains no text, only blank lines (lines 1–${lastLine}).`, lastLine);
     const plain = this.buffer.filter((l) => l.text.trim() !== '' && commentBody(l.text) === undefined && sectionName(l.text) === undefined);
+    const header = plain[plain.length - 1]?.no;
     throw new TransportParseError(
       'no-data',
-      plain.length > 0
-        ? `The file has a header (line ${plain[plain.length - 1].no}) but no rows of numbers.`
-        : 'The file has no rows of numbers (only comments or metadata).',
+      header !== undefined
+        ? `The file has a header (line ${header}) but no rows of numbers.`
+        : `The file has no rows of numbers (only comments or metadata, lines 1–${lastLine}).`,
+      header ?? lastLine,
     );
   }
 
@@ -102,17 +132,36 @@ export class TableBuilder {
     preamble.warnings.forEach((w) => this.warnings.add(w));
     this.specs = this.buildSpecs(preamble.headerCells, preamble.unitCells, layout.columnCount);
     const n = this.specs.length;
-    this.stores = this.specs.map(() => new ColumnStore());
+    this.set = new ColumnSet(n, this.expectedRows(buffered, dataLines));
     this.bounds = new Int32Array(2 * (n + 8));
     this.row = new Float64Array(n);
     this.kinds = new Uint8Array(n);
     this.shifts = Int8Array.from(this.specs, (spec) => decimalShift(spec.mapping));
     this.decimalCode = layout.decimalSeparator.charCodeAt(0);
     this.commentSemicolon = layout.delimiter !== ';';
+    this.fast = new ByteRowReader(layout, this.shifts);
     this.layout = layout;
     this.buffer = [];
     for (const l of dataLines) if (!this.dataLine(l.text, 0, l.text.length, l.no)) return false;
     return true;
+  }
+
+  /**
+   * Rows to allocate at once: from options.sizeBytes and the length of the first data lines (+10 %), so a large file
+   * fills one block per column; without a size, blocks grow as rows arrive.
+   */
+  private expectedRows(buffered: BufferedLine[], dataLines: BufferedLine[]): number {
+    const size = this.options.sizeBytes;
+    const limit = Math.min(this.options.maxRows ?? Infinity, MAX_EXPECTED_ROWS);
+    if (!size || !(size > 0)) return Math.min(FIRST_BLOCK_ROWS, limit);
+    let before = 0;
+    for (const l of buffered) {
+      if (l === dataLines[0]) break;
+      before += l.text.length + 1;
+    }
+    const sample = dataLines.slice(0, 200);
+    const perRow = sample.reduce((sum, l) => sum + l.text.length + 1, 0) / Math.max(1, sample.length);
+    return Math.max(1, Math.min(limit, Math.ceil((1.1 * Math.max(0, size - before)) / Math.max(1, perRow)) + 64));
   }
 
   /** Every cell a number or missing marker, and as many cells as the table has columns. */
@@ -233,11 +282,24 @@ export class TableBuilder {
       return true;
     }
     if (text > 0) this.reportText(s, no, n);
-    for (let k = 0; k < n; k++) this.stores[k].push(this.row[k]);
     if (n < cols) {
-      for (let k = n; k < cols; k++) this.stores[k].push(NaN);
+      this.row.fill(NaN, n);
       this.warnings.add({ line: no, code: 'short-row', message: `Line ${no} has ${n} values but the table has ${cols} columns; the missing values are NaN.` });
     }
+    return this.pushRow(cols);
+  }
+
+  /** Appends `row` to the columns; false once the row limit is reached. */
+  private pushRow(cols: number): boolean {
+    const set = this.set;
+    set.reserve();
+    for (let k = 0; k < cols; k++) set.blocks[k][set.pos] = this.row[k];
+    return this.commitRow();
+  }
+
+  /** Counts the row just written at set.pos; false once the row limit is reached. */
+  private commitRow(): boolean {
+    this.set.commit();
     this.rowCount++;
     if (this.options.maxRows !== undefined && this.rowCount >= this.options.maxRows) {
       this.truncated = true;
@@ -258,7 +320,7 @@ export class TableBuilder {
   /** Column values (converted to SI where the unit is known) and their statistics; empties the stores. */
   finishColumns(): { spec: ColumnSpec; values: Float64Array; nanCount: number; range: { min: number; max: number } | null }[] {
     return this.specs.map((spec, k) => {
-      const values = this.stores[k].finish();
+      const values = this.set.finish(k);
       const { factor, offset, converted } = spec.mapping;
       // Decimal factors were applied while reading (decimalShift); only other factors and offsets remain.
       const scale = converted && this.shifts[k] === 0 && (factor !== 1 || offset !== 0);

@@ -80,6 +80,8 @@ export type ParseOptions = {
   maxLineBytes?: number;
   /** More bytes stop parsing with 'too-large' (default 1 GiB). */
   maxBytes?: number;
+  /** Size of the whole source in bytes when known (file size, object size): the columns are then allocated once. */
+  sizeBytes?: number;
   /** Stop after this many data rows (for previews); the table is marked truncated. */
   maxRows?: number;
   columns?: ColumnOverride[];
@@ -88,4 +90,5 @@ export type ParseOptions = {
   onProgress?: (bytesRead: number) => void;
 };
 
+/** Chunks of the file in order. The parser asks for the next chunk while it reads one: never reuse a chunk's memory. */
 export type ByteSource = AsyncIterable<Uint8Array>;

@@ -1,36 +1,53 @@
+import iconv from 'iconv-lite';
 import { describe, expect, it } from 'vitest';
 import { parseTransportText } from '@/lib/transport/parse';
 import { column, fixture, parseError } from './helpers';
 
 describe('bad input gives a typed error, never a crash', () => {
   it('empty file', async () => {
-    expect(await parseError(fixture('empty.csv'))).toMatchObject({ name: 'TransportParseError', code: 'empty', message: 'The file is empty.' });
+    expect(await parseError(fixture('empty.csv'))).toMatchObject({ name: 'TransportParseError', code: 'empty', line: 1, message: 'The file is empty: line 1 has no bytes at all.' });
   });
 
   it('only blank lines', async () => {
-    expect(await parseError('\n  \r\n\t\n')).toMatchObject({ code: 'empty' });
+    expect(await parseError('\n  \r\n\t\n')).toMatchObject({ code: 'empty', line: 3, message: 'The file contains no text, only blank lines (lines 1–3).' });
   });
 
   it('header without data rows names the header line', async () => {
-    expect(await parseError(fixture('header-only.csv'))).toMatchObject({ code: 'no-data', message: 'The file has a header (line 1) but no rows of numbers.' });
+    expect(await parseError(fixture('header-only.csv'))).toMatchObject({ code: 'no-data', line: 1, message: 'The file has a header (line 1) but no rows of numbers.' });
+    expect(await parseError('# Larkspur Cryogenic Lab\n# Sample: LCL-Nb-02\n\nT (K),R (Ohm)\n\n')).toMatchObject({ code: 'no-data', line: 4 });
   });
 
   it('only comments and metadata', async () => {
-    expect(await parseError('# Sample: A\n# Operator: B\n')).toMatchObject({ code: 'no-data', message: 'The file has no rows of numbers (only comments or metadata).' });
+    expect(await parseError('# Sample: A\n# Operator: B\n')).toMatchObject({ code: 'no-data', line: 2, message: 'The file has no rows of numbers (only comments or metadata, lines 1–2).' });
   });
 
-  it('binary data (a PNG signature and random bytes) is refused', async () => {
+  it('binary data (a PNG signature and random bytes) is refused, naming the line of the first NUL', async () => {
     const bytes = new Uint8Array(4096);
     bytes.set([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13]);
     let seed = 7;
     for (let i = 12; i < bytes.length; i++) bytes[i] = seed = (seed * 1103515245 + 12345) % 256;
-    expect(await parseError(bytes)).toMatchObject({ code: 'binary', message: expect.stringMatching(/^This is not a text table/) });
+    // The PNG signature holds two LF bytes before the first NUL (byte 9): line 3.
+    expect(await parseError(bytes)).toMatchObject({
+      code: 'binary',
+      line: 3,
+      message: 'This is not a text table: line 3 contains a NUL byte (byte 9; a binary file?). Export the data as CSV, TSV or plain text.',
+    });
   });
 
-  it('text with stray control bytes is refused as binary, a single NUL too', async () => {
+  it('text with stray control bytes is refused as binary, a single NUL too, each with its line', async () => {
     const text = 'T,R\n' + '1,2\x01\x02\x03\x04\x05\x06\n'.repeat(20);
-    expect(await parseError(text)).toMatchObject({ code: 'binary' });
-    expect(await parseError('T,R\n1,2\n\0')).toMatchObject({ code: 'binary' });
+    expect(await parseError(text)).toMatchObject({ code: 'binary', line: 2, message: expect.stringContaining('line 2 contains control bytes (byte 8;') });
+    expect(await parseError('T,R\n1,2\n\0')).toMatchObject({ code: 'binary', line: 3 });
+  });
+
+  it('UTF-32 text (with or without a byte-order mark) is an unsupported encoding, not binary', async () => {
+    const table = 'T (K),R (Ohm)\n1,10\n2,20\n';
+    expect(await parseError(iconv.encode(table, 'utf-32le', { addBOM: true }))).toMatchObject({
+      code: 'unsupported-encoding',
+      line: 1,
+      message: 'The file is UTF-32 LE text, which Ohmstead does not read. Save it as UTF-8 (or UTF-16, or a single-byte code page).',
+    });
+    expect(await parseError(iconv.encode(table, 'utf-32be', { addBOM: false }))).toMatchObject({ code: 'unsupported-encoding', message: expect.stringMatching(/^The file is UTF-32 BE text/) });
   });
 
   it('a 10 MB line without a break stops at maxLineBytes with the line number', async () => {
@@ -41,9 +58,20 @@ describe('bad input gives a typed error, never a crash', () => {
     expect(await parseError('T,R\n' + 'x'.repeat(5000), { maxLineBytes: 4096 })).toMatchObject({ code: 'line-too-long', line: 2 });
   });
 
+  it('a 10 MB first line (no break at all), in UTF-8 and in UTF-16, stops at line 1', async () => {
+    const line = '1,'.repeat(5 * 1024 * 1024);
+    expect(await parseError(line)).toMatchObject({ code: 'line-too-long', line: 1 });
+    expect(await parseError(iconv.encode(`T,R\n1,2\n${line}`, 'utf-16le', { addBOM: true }))).toMatchObject({ code: 'line-too-long', line: 3 });
+  });
+
   it('a file over maxBytes', async () => {
     const text = 'T,R\n' + '1,2\n'.repeat(100_000);
-    expect(await parseError(text, { maxBytes: 100_000 })).toMatchObject({ code: 'too-large', message: 'The file is over the configured size limit of 100000 bytes.' });
+    // Bytes arrive in 64 KiB chunks: the second chunk passes the limit after 65 536 bytes = line 1 + 16 383 rows of 4 bytes.
+    expect(await parseError(text, { maxBytes: 100_000 })).toMatchObject({
+      code: 'too-large',
+      line: 16_385,
+      message: 'The file is over the configured size limit of 100000 bytes (reading stopped in line 16385).',
+    });
   });
 
   it('an encoding iconv-lite does not know', async () => {
