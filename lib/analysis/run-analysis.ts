@@ -50,7 +50,7 @@ export async function runAnalysisOnce(options: RunAnalysisOptions = {}): Promise
   };
   try {
     const read = await readObject(options.store ?? defaultStore(), file.storageKey);
-    const summary = await summariseFile(read.body, { metadata: asDraft(file.metadata), fileName: file.name, signal: options.signal, onProgress });
+    const summary = await summariseFile(read.body, { metadata: asDraft(file.metadata), fileName: file.name, sizeBytes: file.sizeBytes, signal: options.signal, onProgress });
     await writes;
     return { fileId: file.id, outcome: (await finishAnalysis(file.id, summary)) ? 'done' : 'superseded' };
   } catch (error) {

@@ -5,6 +5,14 @@ const R = 'schemas/api/responses/';
 
 export const REUSE_OPERATIONS: OperationSpec[] = [
   {
+    method: 'get', path: '/search', operationId: 'searchPublished', tag: 'Search and reuse', auth: 'optional',
+    summary: 'Search published datasets',
+    description: 'Free text over titles, descriptions, keywords, materials (formula spellings tolerated), creators and groups, with facets counted over the matches, range filters (tMin/tMax in K, bMax in T, fMin/fMax in Hz), sort and paging. Drafts, versions in review and withdrawn versions never appear; embargoed ones do, marked embargoed. Repeat a facet key to select several values.',
+    query: { schema: 'schemas/api/search-query.schema.json' },
+    responses: [{ status: 200, description: 'One page of results with facet counts.', schema: `${R}search-result.schema.json` }],
+    errors: { 400: 'A malformed query: unknown key, wrong type, inverted range or a page beyond the limit.' },
+  },
+  {
     method: 'get', path: '/versions/{versionId}/package', operationId: 'downloadPackage', tag: 'Search and reuse', auth: 'optional',
     summary: 'Download a version as a package',
     description: 'A zip holding a BagIt bag: every file with its SHA-256 manifest, the record, a README and CITATION.cff. Streamed as it is built, or, once a published version\'s package is cached, a 302 to a presigned address valid for 5 minutes (follow it without your Authorization header, as curl -L and requests do for another host or port). A stored file that cannot be read breaks the transfer rather than give a short zip. HEAD answers the headers only.',

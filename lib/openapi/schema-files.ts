@@ -66,6 +66,7 @@ import uploadStatusResponseSchema from '@/schemas/api/responses/upload-status.sc
 import versionPublishedResponseSchema from '@/schemas/api/responses/version-published.schema.json';
 import versionReturnedResponseSchema from '@/schemas/api/responses/version-returned.schema.json';
 import versionSubmittedResponseSchema from '@/schemas/api/responses/version-submitted.schema.json';
+import searchResultResponseSchema from '@/schemas/api/responses/search-result.schema.json';
 import versionViewResponseSchema from '@/schemas/api/responses/version-view.schema.json';
 import versionWithdrawnResponseSchema from '@/schemas/api/responses/version-withdrawn.schema.json';
 
@@ -138,6 +139,7 @@ export const SCHEMA_FILES: readonly SchemaFile[] = [
   ['schemas/api/responses/version-published.schema.json', versionPublishedResponseSchema],
   ['schemas/api/responses/version-returned.schema.json', versionReturnedResponseSchema],
   ['schemas/api/responses/version-submitted.schema.json', versionSubmittedResponseSchema],
+  ['schemas/api/responses/search-result.schema.json', searchResultResponseSchema],
   ['schemas/api/responses/version-view.schema.json', versionViewResponseSchema],
   ['schemas/api/responses/version-withdrawn.schema.json', versionWithdrawnResponseSchema],
 ];

@@ -4,6 +4,7 @@ import { handleDoiReserve } from '@/lib/doi/reserve-draft-doi';
 import { log } from '@/lib/log';
 import { publishingOutboxHandlers } from '@/lib/publishing/outbox-handlers';
 import { reviewOutboxHandlers } from '@/lib/review/outbox-handlers';
+import { searchOutboxHandlers } from '@/lib/search/search-changed';
 import { retryDelayMs } from './backoff';
 import { claimDue, claimFresh, markFailed, markProcessed, type OutboxRow } from './repo';
 
@@ -17,6 +18,7 @@ export function defaultOutboxHandlers(options: { doi?: DoiClient } = {}): Outbox
     'doi.reserve': (payload) => handleDoiReserve(payload, options.doi),
     ...publishingOutboxHandlers(),
     ...reviewOutboxHandlers(),
+    ...searchOutboxHandlers(),
   };
 }
 

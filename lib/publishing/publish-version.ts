@@ -1,4 +1,5 @@
 import 'server-only';
+import { searchChangedJob } from '@/lib/search/search-changed';
 import { findVersionRow } from '@/lib/datasets/repo-versions';
 import { AppError } from '@/lib/errors';
 import { mailJobs } from '@/lib/notify/mail-jobs';
@@ -60,7 +61,8 @@ export async function publishVersion(
             details: { fromState: row.state, doi, embargoUntil, requestedEmbargoUntil: row.requested_embargo_until },
           },
           // Registration first: the mails then go out whether or not the agency answered.
-          jobs: [{ topic: DOI_REGISTER_TOPIC, aggregateId: row.id, payload: { versionId: row.id }, holdMs: FIRST_TRY_HOLD_MS }, ...mails],
+          jobs: [{ topic: DOI_REGISTER_TOPIC, aggregateId: row.id, payload: { versionId: row.id }, holdMs: FIRST_TRY_HOLD_MS }, ...mails,
+            searchChangedJob(row.dataset_id, row.id)],
         };
       },
     },

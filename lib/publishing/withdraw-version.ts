@@ -1,4 +1,5 @@
 import 'server-only';
+import { searchChangedJob } from '@/lib/search/search-changed';
 import { DOI_REGISTER_TOPIC } from './register-version-doi';
 import { FIRST_TRY_HOLD_MS, requireText, runTransition, type ActingUser, type TransitionDeps } from './version-transitions';
 
@@ -27,7 +28,8 @@ export async function withdrawVersion(
       plan: (row, _prepared, ctx, user) => ({
         patch: { state: 'withdrawn', withdrawn_at: now, withdrawal_reason: reason },
         audit: { action: 'version.withdraw', actorUserId: user.id, groupId: ctx.version.group_id, details: { reason, doi: row.doi } },
-        jobs: [{ topic: DOI_REGISTER_TOPIC, aggregateId: row.id, payload: { versionId: row.id }, holdMs: FIRST_TRY_HOLD_MS }],
+        jobs: [{ topic: DOI_REGISTER_TOPIC, aggregateId: row.id, payload: { versionId: row.id }, holdMs: FIRST_TRY_HOLD_MS },
+          searchChangedJob(row.dataset_id, row.id)],
       }),
     },
     deps,

@@ -1,0 +1,106 @@
+// Deterministic synthetic published versions for the search benchmark: invented compositions, labs and people.
+// Nothing here is real data; the mix (facet cardinalities, range spreads, text lengths) imitates a busy hub.
+import type { SearchDoc } from '@/lib/search/types';
+
+/** mulberry32: a small, fast, well-distributed 32-bit PRNG (public-domain reference implementation). */
+export function prng(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const SYMBOLS = 'Nb Ti Sn Ge Cu Ni Mn Fe Co Sr Ba La Y Bi Se Te Sb In As Ga Mo Ru Ir Pt Pd Zr Hf Ta V Cr Al Mg Zn Ca'.split(' ');
+const FORMS = ['thin film', 'single crystal', 'wire', 'foil', 'polycrystal', 'nanowire', 'flake', 'bulk sample'];
+const QUANTITIES = ['resistivity', 'sheet-resistance', 'hall-resistance', 'magnetoresistance'];
+const METHODS = ['four-wire', 'two-wire', 'van-der-pauw', 'hall-bar'];
+const EXCITATIONS: SearchDoc['excitation'][] = ['dc', 'dc-reversal', 'ac', 'ac', null];
+const SUBSCRIPT = '₀₁₂₃₄₅₆₇₈₉';
+const DOMAIN = ('resistivity transition superconducting onset anneal substrate contact geometry cryostat sweep hysteresis ' +
+  'carrier density mobility anisotropy strain oxygen doping residual ratio phonon scattering kondo upturn plateau ' +
+  'quantum oscillation weak localisation crossover metallic insulating epitaxial grain boundary current reversal ' +
+  'thermometer calibration lock-in heating cooling field angle rotation interface disorder').split(' ');
+
+function syllableWord(rnd: () => number, syllables: number): string {
+  const c = 'bdfgklmnprstvz', v = 'aeiou';
+  let w = '';
+  for (let i = 0; i < syllables; i++) w += c[Math.floor(rnd() * c.length)] + v[Math.floor(rnd() * v.length)];
+  return w;
+}
+
+const cap = (w: string) => w[0].toUpperCase() + w.slice(1);
+
+export type Corpus = { make(i: number): SearchDoc; materials: string[]; groups: SearchDoc['group'][]; words: string[] };
+
+/** A generator of `count` versions; make(i) is a pure function of i (and the seed), so nothing needs to be kept. */
+export function searchCorpus(seed = 7): Corpus {
+  const rnd = prng(seed);
+  const pick = <T>(list: readonly T[], r = rnd) => list[Math.floor(r() * list.length)];
+  const words = Array.from({ length: 2500 }, (_, i) => syllableWord(rnd, 2 + (i % 3)));
+  const materials = Array.from({ length: 3000 }, () => {
+    const n = 1 + Math.floor(rnd() * 4);
+    return Array.from({ length: n }, () => pick(SYMBOLS) + (rnd() < 0.5 ? String(1 + Math.floor(rnd() * 7)) : '')).join('');
+  });
+  const groups = Array.from({ length: 40 }, () => {
+    const name = `${cap(syllableWord(rnd, 3))} ${pick(['Transport', 'Cryogenic', 'Thin Films', 'Magnetotransport', 'Quantum Materials'])} Lab`;
+    return { slug: name.toLowerCase().replace(/[^a-z]+/g, '-').replace(/-$/, ''), name };
+  });
+  const people = Array.from({ length: 2000 }, () => `${cap(syllableWord(rnd, 2))} ${cap(syllableWord(rnd, 3))}`);
+  const keywords = [...DOMAIN, ...words.slice(0, 300)];
+
+  function make(i: number): SearchDoc {
+    const r = prng(seed * 1_000_003 + i);
+    const datasetIndex = Math.floor(i / 2);
+    const formula = materials[Math.floor(r() ** 2 * materials.length)]; // popular materials first
+    const spelled = r() < 0.3 ? formula.replace(/\d/g, (d) => SUBSCRIPT[Number(d)]) : formula;
+    const form = pick(FORMS, r);
+    const quantities = QUANTITIES.filter(() => r() < 0.4);
+    if (quantities.length === 0) quantities.push(pick(QUANTITIES, r));
+    const methods = [pick(METHODS, r), ...(r() < 0.2 ? [pick(METHODS, r)] : [])];
+    const excitation = pick(EXCITATIONS, r);
+    const year = 2018 + Math.floor(r() * 9);
+    const group = groups[Math.floor(r() ** 1.5 * groups.length)];
+    const tLo = 0.3 * 10 ** (r() * 2.5), tHi = Math.min(400, tLo * 10 ** (0.3 + r() * 2.5));
+    const bHi = r() < 0.6 ? 0 : Math.round(1 + r() * 29);
+    const fHz = excitation === 'ac' ? Math.round(7 + r() * 1000) : undefined;
+    const text = (n: number) => Array.from({ length: n }, () => (r() < 0.35 ? pick(DOMAIN, r) : pick(words, r))).join(' ');
+    const doc: SearchDoc = {
+      versionId: `v-${i.toString(16).padStart(8, '0')}`,
+      datasetId: `d-${datasetIndex.toString(16).padStart(8, '0')}`,
+      versionNumber: 1 + (i % 2),
+      isLatest: i % 2 === 1 || r() < 0.3,
+      title: `${cap(pick(quantities, r).replace(/-/g, ' '))} of ${spelled} ${form}: ${text(4)}`,
+      description: `${text(30 + Math.floor(r() * 15))}.`,
+      keywords: Array.from({ length: 3 + Math.floor(r() * 3) }, () => pick(keywords, r)),
+      material: `${spelled} ${form}`,
+      formula,
+      creators: r() < 0.1 ? [] : Array.from({ length: 1 + Math.floor(r() * 4) }, () => pick(people, r)),
+      group,
+      quantities,
+      methods,
+      excitation,
+      year,
+      publishedAt: new Date(Date.UTC(year, 0, 1) + Math.floor(r() * 364 * 86_400_000)).toISOString(),
+      embargoed: r() < 0.1,
+      doi: `10.99999/ohm.${i}`,
+      ranges: {
+        temperatureK: [tLo, tHi],
+        ...(bHi ? { fieldT: [r() < 0.5 ? -bHi : 0, bHi] as [number, number] } : { fieldT: [0, 0] as [number, number] }),
+        ...(fHz ? { frequencyHz: [fHz, fHz] as [number, number] } : {}),
+        ...(form.includes('film') ? { thicknessM: [1e-9 * (5 + r() * 200), 1e-9 * (5 + r() * 200)] as [number, number] } : {}),
+      },
+      sparkline: Array.from({ length: 64 }, (_, k) => {
+        const t = tLo + ((tHi - tLo) * k) / 63;
+        return [t, 1e-7 * (1 + t / 100) * (1 + 0.01 * r())] as [number, number];
+      }),
+      temperatureSpanK: [tLo, tHi],
+    };
+    return doc;
+  }
+
+  return { make, materials, groups, words };
+}

@@ -1,0 +1,77 @@
+// Words of the small-vocabulary fields (quantities, methods, excitation, group) are matched against the facet
+// dictionaries instead of being indexed per version in FlexSearch: in the benchmark corpus a version carries ~9 such
+// words (14 % of all postings) from a vocabulary of a few dozen. A matching word costs one scan of a facet column,
+// and the scan is reused until the index next changes.
+import type { FacetColumn } from './facet-column';
+import type { FacetColumns } from './facets';
+import { textKeys } from './tokenise';
+import type { FacetName } from './types';
+
+const WORDY_FACETS: FacetName[] = ['quantity', 'method', 'excitation', 'group'];
+
+type Vocabulary = { size: number; codesOf: Map<string, number[]> };
+
+// Slot lists of recently matched facet words, kept until the index changes (bounded to ~8 MB of slot numbers).
+const CACHE_SLOTS = 2_000_000;
+
+export class FacetWords {
+  private readonly vocabularies = new Map<FacetName, Vocabulary>();
+  private scratch = new Int32Array(0);
+  private readonly cache = new Map<string, Int32Array>();
+  private cachedSlots = 0;
+  private cachedAt = -1;
+
+  constructor(private readonly facets: FacetColumns) {}
+
+  /**
+   * The slots (below `upTo`) whose quantity, method, excitation or group has `term` among its words, one list per
+   * facet. `changes` is the index's change counter: lists found since the last change are reused.
+   */
+  slotsFor(term: string, upTo: number, changes: number): Int32Array[] {
+    if (changes !== this.cachedAt) {
+      this.cache.clear();
+      this.cachedSlots = 0;
+      this.cachedAt = changes;
+    }
+    const found: Int32Array[] = [];
+    for (const name of WORDY_FACETS) {
+      const column = this.facets.columns[name];
+      const codes = this.vocabulary(name, column).codesOf.get(term);
+      if (!codes) continue;
+      const key = `${name}:${term}`;
+      let slots = this.cache.get(key);
+      if (!slots) {
+        const flags = new Uint8Array(column.values.length);
+        for (const code of codes) flags[code] = 1;
+        if (this.scratch.length < upTo) this.scratch = new Int32Array(upTo);
+        slots = this.scratch.slice(0, column.slotsWith(flags, upTo, this.scratch));
+        if (this.cachedSlots + slots.length > CACHE_SLOTS) {
+          this.cache.clear();
+          this.cachedSlots = 0;
+        }
+        this.cache.set(key, slots);
+        this.cachedSlots += slots.length;
+      }
+      if (slots.length) found.push(slots);
+    }
+    return found;
+  }
+
+  // Rebuilt only when the facet has gained values (values are never renamed, only added).
+  private vocabulary(name: FacetName, column: FacetColumn): Vocabulary {
+    let vocabulary = this.vocabularies.get(name);
+    if (!vocabulary || vocabulary.size !== column.values.length) {
+      const codesOf = new Map<string, number[]>();
+      column.values.forEach((value, code) => {
+        for (const key of new Set(textKeys(`${value} ${column.labels[code] ?? ''}`))) {
+          const list = codesOf.get(key) ?? [];
+          list.push(code);
+          codesOf.set(key, list);
+        }
+      });
+      vocabulary = { size: column.values.length, codesOf };
+      this.vocabularies.set(name, vocabulary);
+    }
+    return vocabulary;
+  }
+}

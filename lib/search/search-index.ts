@@ -1,0 +1,194 @@
+// The in-process search index of published versions: FlexSearch for words, our own columns for facets, ranges,
+// order and cards. Pure (no DB, Next or React): the caller feeds it from the database and the outbox.
+import { FacetWords } from './facet-words';
+import { facetSelection, FacetColumns, selectsAnything } from './facets';
+import { highlightSegments, SNIPPET_CHARS } from './highlight';
+import { formulaKey, materialKeys } from './normalise-formula';
+import type { SlotKeys } from './ordering';
+import { DEFAULT_PAGE_SIZE, validateSearchQuery } from './parse-query';
+import { queryTerms } from './query-terms';
+import { RangeColumns } from './ranges';
+import { ResultPages } from './result-pages';
+import { SparklineStore } from './sparkline-store';
+import { SlotTable, type StoredDoc } from './slot-table';
+import { TextMatcher, textFields } from './text-match';
+import { type SearchDoc, type SearchHit, type SearchQuery, type SearchResult } from './types';
+
+export class SearchIndex {
+  private readonly table = new SlotTable();
+  private readonly facets = new FacetColumns(0);
+  private readonly ranges = new RangeColumns(0);
+  private readonly sparklines = new SparklineStore(0);
+  private readonly text = new TextMatcher();
+  private readonly facetWords = new FacetWords(this.facets);
+  private readonly formulas = new Map<string, number>(); // formula key or alias → versions carrying it
+  private readonly keys: SlotKeys = { dateMs: this.table.dateMs, versionIdOf: (s) => this.table.docs[s]?.versionId ?? '' };
+  private readonly pages = new ResultPages(this.table, this.keys);
+  private buffer = new Int32Array(0);
+  private changes = 0; // bumped by every add and remove; keys the cached counts of the plain listing
+  private readonly unfiltered = new Map<boolean, { changes: number; passed: number; counts: Int32Array[] }>();
+
+  /** `capacity`: the number of versions about to be added, if known (a rebuild counts its rows), to size columns once. */
+  constructor(options: { capacity?: number } = {}) {
+    if (options.capacity) {
+      this.table.reserve(options.capacity);
+      this.growTo(this.table.capacity);
+    }
+  }
+
+  /** Number of indexed versions. */
+  get size(): number {
+    return this.table.size;
+  }
+
+  has(versionId: string): boolean {
+    return this.table.slotOf(versionId) !== undefined;
+  }
+
+  /** The indexed version as a SearchDoc (sparkline at stored resolution), or undefined. */
+  get(versionId: string): SearchDoc | undefined {
+    const slot = this.table.slotOf(versionId);
+    return slot === undefined ? undefined : this.toSearchDoc(slot);
+  }
+
+  /** Adds a version, or replaces it if already indexed (text is re-indexed only when searchable text changed). */
+  add(doc: SearchDoc): void {
+    const keysOfMaterial = materialKeys(doc.material, doc.formula);
+    const existing = this.table.slotOf(doc.versionId);
+    if (existing !== undefined) {
+      const sameText = this.table.sameText(existing, doc);
+      this.unindexColumns(existing);
+      if (!sameText) this.text.remove(existing);
+      this.indexColumns(existing, doc, keysOfMaterial);
+      if (!sameText) this.text.add(textFields(existing, doc, keysOfMaterial));
+      return;
+    }
+    const slot = this.table.allocate();
+    if (this.table.capacity > this.buffer.length) this.growTo(this.table.capacity);
+    this.indexColumns(slot, doc, keysOfMaterial);
+    this.text.add(textFields(slot, doc, keysOfMaterial));
+  }
+
+  /** Same as add: the outbox says "this version changed", whatever changed. */
+  update(doc: SearchDoc): void {
+    this.add(doc);
+  }
+
+  /** Removes a version (withdrawn, or no longer public); false when it was not indexed. */
+  remove(versionId: string): boolean {
+    const slot = this.table.slotOf(versionId);
+    if (slot === undefined) return false;
+    this.unindexColumns(slot);
+    this.text.remove(slot);
+    this.table.release(slot);
+    return true;
+  }
+
+  /** Runs a query; throws only SearchQueryError (HTTP 400) for parameters that break the schema or a range. */
+  search(params: SearchQuery): SearchResult {
+    const query = validateSearchQuery(params);
+    const { terms, notes } = queryTerms(query.q, (key) => this.formulas.has(key));
+    const page = query.page ?? 1;
+    const pageSize = query.pageSize ?? DEFAULT_PAGE_SIZE;
+    const sort = terms.length === 0 ? 'date' : (query.sort ?? 'relevance');
+
+    const latestOnly = !query.allVersions;
+    const inRange = this.ranges.filter(query);
+    const selection = facetSelection(query);
+    const offset = (page - 1) * pageSize;
+    let pageSlots: number[] = [];
+    let passed: number;
+    let counts: Int32Array[];
+    let score: Float64Array | undefined;
+    if (!terms.length && !inRange && !selectsAnything(selection)) {
+      // The plain listing (no text, no filter): counts cached until the next change, page read off the date order.
+      ({ passed, counts } = this.unfilteredCounts(latestOnly));
+      if (offset < passed) pageSlots = this.pages.newestOfAll(latestOnly, offset, pageSize);
+    } else {
+      // 1. Words (or every version), 2. latest-only and ranges, 3. facets with counts.
+      const found = terms.length ? this.text.match(terms, (term) => this.facetWords.slotsFor(term, this.table.capacity, this.changes)) : this.table.liveSlots(this.buffer, latestOnly);
+      const { slots, length } = found;
+      score = found.score;
+      let kept = length;
+      if (inRange || (terms.length && latestOnly)) {
+        const latest = this.table.latest;
+        kept = 0;
+        for (let i = 0; i < length; i++) {
+          const s = slots[i];
+          if ((!latestOnly || latest[s] === 1) && (!inRange || inRange(s))) slots[kept++] = s;
+        }
+      }
+      ({ passed, counts } = this.facets.filterAndCount(slots, kept, selection));
+      if (offset < passed) {
+        pageSlots = sort === 'relevance' && score
+          ? this.pages.byScore(slots, passed, offset, pageSize, score)
+          : this.pages.newestOf(slots, passed, offset, pageSize);
+      }
+    }
+    const termSet = new Set(terms);
+    const hits: SearchHit[] = pageSlots.map((s) => this.hit(s, termSet, terms.length && score ? score[s] : 0));
+    return { total: passed, page, pageSize, sort, hits, facets: this.facets.buckets(counts, selection), notes };
+  }
+
+  private hit(slot: number, terms: ReadonlySet<string>, score: number): SearchHit {
+    const doc = this.toSearchDoc(slot);
+    const highlights: SearchHit['highlights'] = {};
+    const title = highlightSegments(doc.title, terms);
+    const description = highlightSegments(doc.description, terms, SNIPPET_CHARS);
+    if (title) highlights.title = title;
+    if (description) highlights.description = description;
+    return { doc, score: Math.round(score * 1000) / 1000, highlights };
+  }
+
+  private unfilteredCounts(latestOnly: boolean): { passed: number; counts: Int32Array[] } {
+    const cached = this.unfiltered.get(latestOnly);
+    if (cached && cached.changes === this.changes) return cached;
+    const { slots, length } = this.table.liveSlots(this.buffer, latestOnly);
+    const fresh = { changes: this.changes, ...this.facets.filterAndCount(slots, length, {}) };
+    this.unfiltered.set(latestOnly, fresh);
+    return fresh;
+  }
+
+  private indexColumns(slot: number, doc: SearchDoc, keysOfMaterial: readonly string[]): void {
+    this.changes++;
+    this.table.store(slot, doc);
+    const c = this.facets.columns;
+    c.material.setOne(slot, formulaKey(doc.formula) || formulaKey(doc.material), doc.formula || doc.material);
+    c.quantity.set(slot, doc.quantities.map((q) => [q.trim().toLowerCase()]));
+    c.method.set(slot, doc.methods.map((m) => [m.trim().toLowerCase()]));
+    c.excitation.setOne(slot, doc.excitation ?? '');
+    c.group.setOne(slot, doc.group.slug.trim().toLowerCase(), doc.group.name);
+    c.year.setOne(slot, String(doc.year));
+    this.ranges.set(slot, doc.ranges);
+    this.sparklines.set(slot, doc.sparkline);
+    for (const key of keysOfMaterial) this.formulas.set(key, (this.formulas.get(key) ?? 0) + 1);
+    this.pages.dateOrder.insert(slot);
+  }
+
+  private unindexColumns(slot: number): void {
+    this.changes++;
+    this.pages.dateOrder.remove(slot);
+    const doc = this.table.docs[slot] as StoredDoc;
+    for (const key of materialKeys(doc.material, doc.formula)) {
+      const n = (this.formulas.get(key) ?? 1) - 1;
+      if (n > 0) this.formulas.set(key, n);
+      else this.formulas.delete(key);
+    }
+    this.facets.clear(slot);
+    this.ranges.set(slot, {});
+    this.sparklines.clear(slot);
+  }
+
+  private growTo(capacity: number): void {
+    this.facets.grow(capacity);
+    this.ranges.grow(capacity);
+    this.sparklines.grow(capacity);
+    this.text.grow(capacity);
+    this.buffer = new Int32Array(capacity);
+    this.keys.dateMs = this.table.dateMs;
+  }
+
+  private toSearchDoc(slot: number): SearchDoc {
+    return this.table.toSearchDoc(slot, this.ranges.get(slot), this.sparklines.get(slot));
+  }
+}

@@ -1,0 +1,97 @@
+import 'server-only';
+import { log } from '@/lib/log';
+import { buildSearchDoc, type PublishedVersionSource } from './build-search-doc';
+import { latestSearchChangeId, loadPublishedSources, searchChangesSince } from './repo';
+import { SearchIndex } from './search-index';
+import type { SearchDoc, SearchQuery, SearchResult } from './types';
+
+// One index per app instance: built from the database on first use, then kept current by following the
+// 'search.changed' log in the outbox (every instance reads every entry; none consumes it for the others).
+
+/** `byDataset` remembers which versions each dataset has in the index, to drop withdrawn or superseded ones. */
+type State = { index: SearchIndex; cursor: number; builtAt: Date; byDataset: Map<string, Set<string>> };
+
+const holder = globalThis as unknown as { ohmsteadSearch?: Promise<State>; ohmsteadSearchCatchUp?: Promise<void> };
+
+function docsOf(sources: PublishedVersionSource[]) {
+  const docs = [];
+  for (const s of sources) {
+    try {
+      docs.push(buildSearchDoc(s));
+    } catch (error) {
+      log('warn', 'search: version left out of the index', { versionId: s.versionId, error: error instanceof Error ? error.message : String(error) });
+    }
+  }
+  return docs;
+}
+
+async function build(): Promise<State> {
+  const started = Date.now();
+  const cursor = await latestSearchChangeId(); // read first: a change committed during the load is replayed after
+  const sources = await loadPublishedSources();
+  const state: State = { index: new SearchIndex({ capacity: sources.length }), cursor, builtAt: new Date(), byDataset: new Map() };
+  for (const doc of docsOf(sources)) addDoc(state, doc);
+  log('info', 'search: index built', { versions: state.index.size, ms: Date.now() - started });
+  return state;
+}
+
+function addDoc(state: State, doc: SearchDoc): void {
+  state.index.add(doc);
+  const set = state.byDataset.get(doc.datasetId) ?? new Set<string>();
+  set.add(doc.versionId);
+  state.byDataset.set(doc.datasetId, set);
+}
+
+/** Applies every logged change since the state's cursor: re-reads the changed datasets and replaces their versions. */
+async function catchUp(state: State): Promise<void> {
+  for (;;) {
+    const changes = await searchChangesSince(state.cursor);
+    if (changes.lastId === state.cursor) return;
+    if (changes.rebuild) {
+      const fresh = await build();
+      Object.assign(state, fresh);
+      continue;
+    }
+    const sources = await loadPublishedSources(changes.datasetIds);
+    const keep = new Set(sources.map((s) => s.versionId));
+    for (const datasetId of changes.datasetIds) {
+      const indexed = state.byDataset.get(datasetId) ?? new Set<string>();
+      for (const versionId of [...indexed]) {
+        if (keep.has(versionId)) continue;
+        state.index.remove(versionId);
+        indexed.delete(versionId);
+      }
+    }
+    for (const doc of docsOf(sources)) addDoc(state, doc);
+    state.cursor = changes.lastId;
+  }
+}
+
+async function current(): Promise<State> {
+  holder.ohmsteadSearch ??= build().catch((error: unknown) => {
+    holder.ohmsteadSearch = undefined; // try again on the next request
+    throw error;
+  });
+  const state = await holder.ohmsteadSearch;
+  // One catch-up at a time per instance; concurrent requests wait for it rather than each re-reading the log.
+  holder.ohmsteadSearchCatchUp ??= catchUp(state).finally(() => {
+    holder.ohmsteadSearchCatchUp = undefined;
+  });
+  await holder.ohmsteadSearchCatchUp;
+  return state;
+}
+
+/** Searches published versions as of the latest logged change (see SearchIndex.search for the query). */
+export async function searchPublished(query: SearchQuery): Promise<SearchResult> {
+  return (await current()).index.search(query);
+}
+
+/** Drops this instance's index (tests; `npm run reindex` asks every instance through the log instead). */
+export function forgetSearchIndex(): void {
+  holder.ohmsteadSearch = undefined;
+}
+
+export async function searchIndexStatus(): Promise<{ versions: number; cursor: number; builtAt: string }> {
+  const s = await current();
+  return { versions: s.index.size, cursor: s.cursor, builtAt: s.builtAt.toISOString() };
+}
