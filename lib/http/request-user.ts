@@ -1,6 +1,8 @@
 import 'server-only';
 import { currentUser, type SessionUser } from '@/lib/auth/session';
+import { env } from '@/lib/env';
 import { AppError } from '@/lib/errors';
+import { CROSS_SITE_MESSAGE, isCrossSiteMutation } from '@/lib/http/cross-site';
 import { API_PER_IP_ANONYMOUS, API_PER_TOKEN, enforceRateLimit } from '@/lib/tokens/api-rate-limit';
 import { authenticateToken, REFUSAL_MESSAGES } from '@/lib/tokens/authenticate-token';
 import { hasScope, scopeForRequest, type TokenScope } from '@/lib/tokens/scopes';
@@ -35,7 +37,7 @@ export function requireSessionUser(user: RequestUser): void {
 /**
  * The signed-in user behind a request, or null. Every `/api/v1` route goes through here: a Bearer token is checked
  * (state, per-token rate limit, the scope the method and path need), else the next-auth session cookie; anonymous
- * callers and bad tokens count against a per-IP limit.
+ * callers and bad tokens count against a per-IP limit. Session-cookie changes from another origin get 403 (CSRF).
  */
 export async function userFromRequest(req: Request): Promise<RequestUser | null> {
   const authorization = req.headers.get('authorization');
@@ -53,7 +55,11 @@ export async function userFromRequest(req: Request): Promise<RequestUser | null>
     return caller;
   }
   const user = await currentUser();
-  if (user) return { ...user, via: 'session' };
+  if (user) {
+    // CSRF: the session cookie rides along on any site's request, so a cookie-authenticated change must come from us.
+    if (isCrossSiteMutation(req, new URL(env().NEXTAUTH_URL).origin)) throw new AppError('forbidden', CROSS_SITE_MESSAGE);
+    return { ...user, via: 'session' };
+  }
   await enforceRateLimit(API_PER_IP_ANONYMOUS, requestIp(req));
   return null;
 }

@@ -1,5 +1,6 @@
 import 'server-only';
 import { recordAudit } from '@/lib/audit/record-audit';
+import { hiddenAs } from '@/lib/datasets/hidden-as';
 import { requireVersionAction } from '@/lib/datasets/version-access';
 import { AppError } from '@/lib/errors';
 import type { LinkActor } from './create-reviewer-link';
@@ -12,7 +13,7 @@ export const LINK_NOT_FOUND = 'We could not find this review link, or you do not
 export async function requireManagedLink(linkId: string, user: LinkActor | null) {
   const link = await findLinkById(linkId);
   if (!link) throw new AppError('not_found', LINK_NOT_FOUND);
-  const ctx = await requireVersionAction(link.version_id, user, 'manage_links');
+  const ctx = await requireVersionAction(link.version_id, user, 'manage_links').catch(hiddenAs(LINK_NOT_FOUND));
   return { link, ctx, user: user as LinkActor };
 }
 

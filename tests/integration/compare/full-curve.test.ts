@@ -74,7 +74,7 @@ describe('readFullCurve', () => {
 
   it('refuses a draft of another group as not found (404), and the group itself may read it', async () => {
     expect(await refusal(readFullCurve({ user: lab.member, fileId: otherDraft.fileId, x: 'T', y: 'R' }))).toEqual({
-      status: 404, code: 'not_found', message: 'We could not find this dataset version, or you do not have access to it.',
+      status: 404, code: 'not_found', message: 'We could not find this file, or you do not have access to it.',
     });
     expect((await refusal(readFullCurve({ user: null, fileId: otherDraft.fileId, x: 'T', y: 'R' }))).status).toBe(404);
     expect((await readFullCurve({ user: otherLab.member, fileId: otherDraft.fileId, x: 'T', y: 'R' })).points).toBe(161);

@@ -1,0 +1,128 @@
+// Pull-based web streams for download bodies (stack.md "archiver 8": never Readable.toWeb, which crashes on abort).
+import type { Readable } from 'node:stream';
+
+const asError = (e: unknown): Error => (e instanceof Error ? e : new Error(String(e)));
+
+/** Storage sent fewer bytes than the download announced: the client must see a broken transfer, not a short file. */
+export class ShortBodyError extends Error {
+  constructor(readonly expectedBytes: number, readonly gotBytes: number) {
+    super(`storage ended the body after ${gotBytes} of ${expectedBytes} bytes`);
+    this.name = 'ShortBodyError';
+  }
+}
+
+/**
+ * Exactly `lengthBytes` bytes of a storage body as a web stream, read only as fast as the client pulls. More bytes
+ * than that are cut off (some stores ignore parts of a Range); fewer error the stream. cancel() destroys the body,
+ * which closes its socket, so nothing more is read from storage.
+ */
+export function exactBodyStream(body: Readable, lengthBytes: number, onError?: (error: Error) => void): ReadableStream<Uint8Array> {
+  const chunks = body[Symbol.asyncIterator]() as AsyncIterator<Buffer>;
+  let remaining = lengthBytes;
+  let stopped = false;
+  const fail = (controller: ReadableStreamDefaultController<Uint8Array>, error: Error) => {
+    stopped = true;
+    body.destroy();
+    onError?.(error);
+    controller.error(error);
+  };
+  return new ReadableStream<Uint8Array>({
+    start(controller) {
+      if (lengthBytes === 0) {
+        stopped = true;
+        body.destroy();
+        controller.close();
+      }
+    },
+    async pull(controller) {
+      let next: IteratorResult<Buffer>;
+      try {
+        next = await chunks.next();
+      } catch (error) {
+        if (!stopped) fail(controller, asError(error));
+        return;
+      }
+      if (stopped) return;
+      if (next.done) return fail(controller, new ShortBodyError(lengthBytes, lengthBytes - remaining));
+      const chunk = next.value.length > remaining ? next.value.subarray(0, remaining) : next.value;
+      remaining -= chunk.length;
+      controller.enqueue(chunk);
+      if (remaining > 0) return;
+      stopped = true;
+      controller.close();
+      // Read on to the body's end so its socket can be reused; anything past our length is dropped with the socket.
+      chunks.next().then((after) => void (after.done || body.destroy()), () => undefined);
+    },
+    cancel() {
+      stopped = true;
+      body.destroy();
+    },
+  });
+}
+
+export type RelayHooks = {
+  /** Awaited after each chunk went to the client: a slow consumer here (e.g. a cache upload) slows the reading. */
+  onChunk?: (chunk: Uint8Array) => Promise<unknown>;
+  /** The source ended normally and the client has every byte. */
+  onEnd?: () => void;
+  /** The source failed: the client's stream errors with the same error, so it sees a broken transfer. */
+  onError?: (error: Error) => void;
+  /** The client went away. */
+  onCancel?: () => void;
+};
+
+export type RelayOptions = {
+  /**
+   * Source chunks are joined until at least this many bytes before they go on (the first chunk goes at once): fewer,
+   * larger socket writes (download-package.ts says what that saved).
+   */
+  joinBytes?: number;
+};
+
+/** Passes a web stream on, pulling from the source only when the client pulls, with hooks for the end. */
+export function relayStream(source: ReadableStream<Uint8Array>, hooks: RelayHooks, options: RelayOptions = {}): ReadableStream<Uint8Array> {
+  const reader = source.getReader();
+  const joinBytes = options.joinBytes ?? 0;
+  let cancelled = false;
+  let first = true;
+  const send = async (controller: ReadableStreamDefaultController<Uint8Array>, parts: Uint8Array[], size: number) => {
+    const chunk = parts.length === 1 ? parts[0]! : Buffer.concat(parts, size);
+    first = false;
+    controller.enqueue(chunk);
+    await hooks.onChunk?.(chunk);
+  };
+  return new ReadableStream<Uint8Array>({
+    async pull(controller) {
+      const parts: Uint8Array[] = [];
+      let size = 0;
+      while (size < joinBytes || parts.length === 0) {
+        let next: ReadableStreamReadResult<Uint8Array>;
+        try {
+          next = await reader.read();
+        } catch (error) {
+          if (cancelled) return;
+          const failure = asError(error);
+          hooks.onError?.(failure);
+          controller.error(failure);
+          return;
+        }
+        if (cancelled) return;
+        if (next.done) {
+          if (size > 0) await send(controller, parts, size);
+          hooks.onEnd?.();
+          controller.close();
+          return;
+        }
+        parts.push(next.value);
+        size += next.value.length;
+        if (first) break;
+      }
+      await send(controller, parts, size);
+    },
+    async cancel(reason) {
+      cancelled = true;
+      hooks.onCancel?.();
+      await reader.cancel(reason);
+    },
+  });
+}
