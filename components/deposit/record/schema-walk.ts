@@ -85,7 +85,7 @@ export function choiceLabel(value: string | number): string {
   return sentence.charAt(0).toUpperCase() + sentence.slice(1);
 }
 
-/** First example of a text field, for a placeholder ("e.g. 0000-0003-1415-9269"). */
+/** First example of a text field, for a placeholder ("e.g. 0000-0000-3141-5920"). */
 export function exampleOf(node: JsonSchema): string | undefined {
   const first = node.examples?.[0];
   return typeof first === 'string' ? first : undefined;

@@ -25,7 +25,7 @@ export type VersionSpec = { state: 'draft' | 'in_review' | 'published' | 'withdr
 
 /** Invented people and institution; identifying() lists every string an anonymous copy must not contain. */
 export const CREATORS = [
-  { name: 'Ashcombe, Perrin', orcid: '0000-0002-7182-8185', affiliation: [{ name: 'Brackenmoor Polytechnic (invented)' }] },
+  { name: 'Ashcombe, Perrin', orcid: '0000-0000-2718-2810', affiliation: [{ name: 'Brackenmoor Polytechnic (invented)' }] },
   { name: 'Quenby Marchetti', affiliation: [{ name: 'Saltire Fen Observatory (invented)' }] },
 ];
 

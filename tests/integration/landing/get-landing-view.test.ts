@@ -70,7 +70,7 @@ describe('a published version', () => {
     expect(view.version).toMatchObject({ number: 1, state: 'published', title: copper.title, doi, doiUrl: `https://doi.org/${doi}`, doiRegistered: true, isLatest: true });
     expect(view.version.publishedAt).toBe('2026-12-02T20:56:04.000Z');
     expect(view.dataset.conceptDoiUrl).toBe(`https://doi.org/${conceptDoi}`);
-    expect(view.creators).toEqual([{ name: 'Imogen Vale', orcid: '0000-0003-1415-9269', orcidUrl: 'https://orcid.org/0000-0003-1415-9269', affiliations: ['Larkspur Cryogenic Lab'] }]);
+    expect(view.creators).toEqual([{ name: 'Imogen Vale', orcid: '0000-0000-3141-5920', orcidUrl: 'https://orcid.org/0000-0000-3141-5920', affiliations: ['Larkspur Cryogenic Lab'] }]);
     expect(view.group).toEqual({ slug: lab.slug, name: lab.name, institution: 'Meridian Transport Consortium (invented)' });
     // DataCite Metadata Schema 4.7, "Citation": Creator (PublicationYear): Title. Version. Publisher. (resourceTypeGeneral). Identifier
     expect(view.citations?.text).toBe(`Vale, Imogen (2026): R(T) of annealed copper wire LCL-Cu-W07, 2–300 K. Version 1. Ohmstead. (Dataset). https://doi.org/${doi}`);

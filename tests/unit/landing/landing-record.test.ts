@@ -57,8 +57,8 @@ describe('readLandingRecord', () => {
     expect(r.geometry).toEqual([]);
     expect(r.keywords).toEqual([]);
     expect(readLandingRecord(null).description).toBeNull();
-    expect(readCreators({ creators: [{ name: '  ' }, { name: 'Imogen Vale', orcid: '0000-0003-1415-9269', affiliation: [{}] }] })).toEqual([
-      { name: 'Imogen Vale', orcid: '0000-0003-1415-9269', orcidUrl: 'https://orcid.org/0000-0003-1415-9269', affiliations: [] },
+    expect(readCreators({ creators: [{ name: '  ' }, { name: 'Imogen Vale', orcid: '0000-0000-3141-5920', affiliation: [{}] }] })).toEqual([
+      { name: 'Imogen Vale', orcid: '0000-0000-3141-5920', orcidUrl: 'https://orcid.org/0000-0000-3141-5920', affiliations: [] },
     ]);
   });
 });

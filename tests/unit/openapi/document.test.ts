@@ -90,9 +90,9 @@ describe('the OpenAPI document', () => {
     example.sample.geometry.thickness = { value: -5, unit: 'nm' };
     expect(validate(example)).toBe(false);
     expect(validate.errors?.[0]?.instancePath).toBe('/sample/geometry/thickness/value');
-    // The creator's ORCID check digit (format "orcid") still applies: 0000-0003-1415-9268 has the wrong last digit.
+    // The creator's ORCID check digit (format "orcid") still applies: 0000-0000-3141-5921 has the wrong last digit.
     const badOrcid = structuredClone(transportDataset.examples[0]) as { creators: { orcid?: string }[] };
-    badOrcid.creators[0].orcid = '0000-0003-1415-9268';
+    badOrcid.creators[0].orcid = '0000-0000-3141-5921';
     expect(validate(badOrcid)).toBe(false);
   });
 

@@ -68,12 +68,12 @@ describe('transport dataset schema', () => {
 
   it('checks the ORCID iD check digit, reporting one error per field', () => {
     const r = example();
-    r.creators[0].orcid = '0000-0003-1415-9268'; // last digit off by one
+    r.creators[0].orcid = '0000-0000-3141-5921'; // last digit off by one
     expect(errorsOf(r)).toEqual([
       { path: 'creators.0.orcid', keyword: 'format', message: 'ORCID iD is not a valid ORCID iD (its last character, the check digit, does not match the other digits).' },
     ]);
     r.creators[0].orcid = '0000-003-1415-9269';
-    expect(errorsOf(r)).toEqual([{ path: 'creators.0.orcid', keyword: 'pattern', message: 'ORCID iD is not in the expected form (for example 0000-0003-1415-9269).' }]);
+    expect(errorsOf(r)).toEqual([{ path: 'creators.0.orcid', keyword: 'pattern', message: 'ORCID iD is not in the expected form (for example 0000-0000-3141-5920).' }]);
   });
 
   it('partial mode ignores missing and still-empty fields but keeps wrong values', () => {
@@ -138,6 +138,6 @@ describe('ORCID check digit (ISO 7064 MOD 11-2)', () => {
     // 0000-0002-1694-233X, the iD ORCID's documentation shows for an X check digit (from memory).
     expect(isValidOrcid('0000-0002-1694-233X')).toBe(true);
     expect(isValidOrcid('0000-0002-1694-2330')).toBe(false);
-    expect(isValidOrcid('0000-0003-1415-9269')).toBe(true);
+    expect(isValidOrcid('0000-0000-3141-5920')).toBe(true);
   });
 });

@@ -5,8 +5,8 @@ import { FACET_LIST_LIMIT, FacetColumns } from '@/lib/search/facets';
 function filled(perSlot: { method: string[]; material: string }[]) {
   const facets = new FacetColumns(perSlot.length);
   perSlot.forEach((v, slot) => {
-    facets.columns.method.set(slot, v.method.map((m) => [m]));
-    facets.columns.material.set(slot, [[v.material]]);
+    facets.columns.method.setMany(slot, v.method);
+    facets.columns.material.setOne(slot, v.material);
   });
   const slots = Int32Array.from(perSlot.keys());
   return { facets, slots };
