@@ -52,7 +52,7 @@ describe('comparing curves in Chromium', () => {
     await page.goto(`${baseUrl}/sign-in?callbackUrl=%2Fcompare`);
     await page.getByLabel('E-mail address', { exact: true }).first().fill(reuser.email);
     await page.getByLabel('Password', { exact: true }).fill(demo.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('button', { name: 'Sign in', exact: true }).click();
     await page.waitForURL(`${baseUrl}/compare`);
 
     // The page's request context shares the browser's session cookie.

@@ -49,7 +49,7 @@ describe('depositing in Chromium', () => {
     await page.waitForURL(/\/sign-in\?callbackUrl=%2Fdeposit$/);
     await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
     await page.getByLabel('Password', { exact: true }).fill(demo.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('button', { name: 'Sign in', exact: true }).click();
     await page.waitForURL(`${baseUrl}/deposit`);
     expect(await accessibilityProblems(page)).toEqual([]);
 
@@ -108,7 +108,7 @@ describe('depositing in Chromium', () => {
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
     await page.getByLabel('Password', { exact: true }).fill(demo.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('button', { name: 'Sign in', exact: true }).click();
     await page.waitForURL(`${baseUrl}/groups`);
     await page.goto(`${baseUrl}/deposit/00000000-0000-4000-8000-000000000000`);
     await page.getByRole('heading', { name: 'Draft not found' }).waitFor();

@@ -55,7 +55,7 @@ describe('inviting a new person in Chromium', () => {
     await ownerPage.waitForURL(/\/sign-in\?callbackUrl=/);
     await ownerPage.getByLabel('E-mail address', { exact: true }).first().fill(owner.email);
     await ownerPage.getByLabel('Password', { exact: true }).fill(demo.password);
-    await ownerPage.getByRole('button', { name: 'Sign in' }).click();
+    await ownerPage.getByRole('button', { name: 'Sign in', exact: true }).click();
     await ownerPage.waitForURL(`${baseUrl}/groups/larkspur-cryogenic/members`);
     expect(await ownerPage.getByRole('heading', { level: 1 }).innerText()).toBe(GROUP);
     expect(await accessibilityProblems(ownerPage)).toEqual([]);

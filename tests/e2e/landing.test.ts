@@ -33,7 +33,7 @@ async function publishedCardHref(page: Page, embargoed: boolean): Promise<string
     const cards = page.locator('main li').filter({ has: page.locator('a[href^="/datasets/"]') });
     for (let i = 0; i < (await cards.count()); i++) {
       const card = cards.nth(i);
-      if ((await card.innerText()).includes('Files under embargo until') !== embargoed) continue;
+      if ((await card.innerText()).includes('Files under embargo') !== embargoed) continue; // search cards and home cards word the lock differently
       const href = await card.locator('a[href^="/datasets/"]').first().getAttribute('href');
       if (href) return href;
     }

@@ -149,7 +149,7 @@ describe('Content-Security-Policy in Chromium', () => {
     await visit(page, '/sign-in');
     await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
     await page.getByLabel('Password', { exact: true }).fill(demo.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('button', { name: 'Sign in', exact: true }).click();
     await page.waitForURL(`${baseUrl}/groups`);
     await visit(page, '/deposit');
     const draft = await page.locator('main a[href^="/deposit/"]').first().getAttribute('href');

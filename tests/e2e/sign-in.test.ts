@@ -19,7 +19,7 @@ describe('signing in in Chromium', () => {
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
     await page.getByLabel('Password', { exact: true }).fill(demo.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('button', { name: 'Sign in', exact: true }).click();
     await page.waitForURL(`${baseUrl}/groups`);
     const mine = page.locator('section[aria-labelledby="mine"]');
     expect(await mine.innerText()).toContain('Larkspur Cryogenic Lab');
@@ -33,7 +33,7 @@ describe('signing in in Chromium', () => {
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
     await page.getByLabel('Password', { exact: true }).fill('definitely wrong');
-    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('button', { name: 'Sign in', exact: true }).click();
     // Next.js keeps an empty route-announcer alert in every page; look for ours by its text.
     const alert = page.getByRole('alert').filter({ hasText: 'E-mail or password is wrong' });
     await alert.waitFor();
