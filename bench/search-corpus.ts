@@ -34,6 +34,19 @@ function syllableWord(rnd: () => number, syllables: number): string {
 
 const cap = (w: string) => w[0].toUpperCase() + w.slice(1);
 
+/**
+ * A string as the database driver hands it over: decoded afresh from UTF-8 bytes, so one flat string. (Strings built
+ * by concatenation are ropes in V8 and would make the index look bigger than it is with real rows.)
+ */
+const asRead = (s: string) => Buffer.from(s, 'utf8').toString('utf8');
+
+/** A deterministic id in UUID form (36 characters, like the database's), so id strings cost what real ones do. */
+function uuidLike(seed: number, n: number, kind: number): string {
+  const r = prng(seed * 7 + n * 3 + kind);
+  const hex = Array.from({ length: 32 }, () => Math.floor(r() * 16).toString(16)).join('');
+  return asRead(`${hex.slice(0, 8)}-${hex.slice(8, 12)}-4${hex.slice(13, 16)}-a${hex.slice(17, 20)}-${hex.slice(20)}`);
+}
+
 export type Corpus = { make(i: number): SearchDoc; materials: string[]; groups: SearchDoc['group'][]; words: string[] };
 
 /** A generator of `count` versions; make(i) is a pure function of i (and the seed), so nothing needs to be kept. */
@@ -47,9 +60,9 @@ export function searchCorpus(seed = 7): Corpus {
   });
   const groups = Array.from({ length: 40 }, () => {
     const name = `${cap(syllableWord(rnd, 3))} ${pick(['Transport', 'Cryogenic', 'Thin Films', 'Magnetotransport', 'Quantum Materials'])} Lab`;
-    return { slug: name.toLowerCase().replace(/[^a-z]+/g, '-').replace(/-$/, ''), name };
+    return { slug: asRead(name.toLowerCase().replace(/[^a-z]+/g, '-').replace(/-$/, '')), name: asRead(name) };
   });
-  const people = Array.from({ length: 2000 }, () => `${cap(syllableWord(rnd, 2))} ${cap(syllableWord(rnd, 3))}`);
+  const people = Array.from({ length: 2000 }, () => asRead(`${cap(syllableWord(rnd, 2))} ${cap(syllableWord(rnd, 3))}`));
   const keywords = [...DOMAIN, ...words.slice(0, 300)];
 
   function make(i: number): SearchDoc {
@@ -67,16 +80,30 @@ export function searchCorpus(seed = 7): Corpus {
     const tLo = 0.3 * 10 ** (r() * 2.5), tHi = Math.min(400, tLo * 10 ** (0.3 + r() * 2.5));
     const bHi = r() < 0.6 ? 0 : Math.round(1 + r() * 29);
     const fHz = excitation === 'ac' ? Math.round(7 + r() * 1000) : undefined;
-    const text = (n: number) => Array.from({ length: n }, () => (r() < 0.35 ? pick(DOMAIN, r) : pick(words, r))).join(' ');
+    const word = () => pick(words, r);
+    const domain = () => pick(DOMAIN, r);
+    const kelvin = (t: number) => (t < 10 ? t.toFixed(1) : String(Math.round(t)));
+    // Two or three sentences of lab prose (~300 characters, function words included) built from the pools above.
+    const sentences = [
+      () => `The ${form} was ${domain()} on a ${word()} substrate and ${domain()} before the ${domain()} sweep.`,
+      () => `A ${domain()} ${domain()} appears near ${kelvin(tLo * 2)} K, with a ${word()} ${domain()} below it.`,
+      () => `Contacts were made with ${word()} paste; the ${domain()} is ${word()} across the ${domain()}.`,
+      () => `Data were taken in the ${word()} cryostat with the ${domain()} checked against a ${word()} ${domain()}.`,
+      () => `Field sweeps reached ${bHi || 1} T at ${(0.1 + r()).toFixed(2)} T per minute to limit ${domain()}.`,
+      () => `We compare the ${domain()} with a ${word()} ${domain()} model and note the ${word()} ${domain()}.`,
+    ];
+    const first = Math.floor(r() * sentences.length), step = r() < 0.5 ? 1 : sentences.length - 1; // no sentence twice
+    const prose = Array.from({ length: 2 + Math.floor(r() * 2) }, (_, k) => sentences[(first + k * step) % sentences.length]()).join(' ');
     const doc: SearchDoc = {
-      versionId: `v-${i.toString(16).padStart(8, '0')}`,
-      datasetId: `d-${datasetIndex.toString(16).padStart(8, '0')}`,
+      versionId: uuidLike(seed, i, 1),
+      datasetId: uuidLike(seed, datasetIndex, 2),
       versionNumber: 1 + (i % 2),
       isLatest: i % 2 === 1 || r() < 0.3,
-      title: `${cap(pick(quantities, r).replace(/-/g, ' '))} of ${spelled} ${form}: ${text(4)}`,
-      description: `${text(30 + Math.floor(r() * 15))}.`,
+      title: asRead(`${cap(pick(quantities, r).replace(/-/g, ' '))} of a ${spelled} ${form}, ${kelvin(tLo)}–${kelvin(tHi)} K: ${domain()} ${word()}`),
+      description: asRead(`We measured the ${quantities.join(' and ').replace(/-/g, ' ')} of a ${form} of ${spelled} between ` +
+        `${kelvin(tLo)} and ${kelvin(tHi)} K using the ${methods[0].replace(/-/g, ' ')} method. ${prose}`),
       keywords: Array.from({ length: 3 + Math.floor(r() * 3) }, () => pick(keywords, r)),
-      material: `${spelled} ${form}`,
+      material: asRead(`${spelled} ${form}`),
       formula,
       creators: r() < 0.1 ? [] : Array.from({ length: 1 + Math.floor(r() * 4) }, () => pick(people, r)),
       group,
@@ -84,9 +111,9 @@ export function searchCorpus(seed = 7): Corpus {
       methods,
       excitation,
       year,
-      publishedAt: new Date(Date.UTC(year, 0, 1) + Math.floor(r() * 364 * 86_400_000)).toISOString(),
+      publishedAt: asRead(new Date(Date.UTC(year, 0, 1) + Math.floor(r() * 364 * 86_400_000)).toISOString()),
       embargoed: r() < 0.1,
-      doi: `10.99999/ohm.${i}`,
+      doi: asRead(`10.99999/ohm.${i}`),
       ranges: {
         temperatureK: [tLo, tHi],
         ...(bHi ? { fieldT: [r() < 0.5 ? -bHi : 0, bHi] as [number, number] } : { fieldT: [0, 0] as [number, number] }),

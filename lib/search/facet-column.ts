@@ -69,17 +69,13 @@ export class FacetColumn {
     this.single[slot] = value === '' ? -1 : this.code(value, label);
   }
 
-  /** Values as [value, label] pairs; an empty value means "none" and is not stored. */
-  set(slot: number, entries: [string, string?][]): void {
+  /** A multi-valued facet's values; empty strings are ignored. */
+  setMany(slot: number, values: readonly string[]): void {
     const codes: number[] = [];
-    for (const [value, label] of entries) {
+    for (const value of values) {
       if (value === '') continue;
-      const code = this.code(value, label);
+      const code = this.code(value);
       if (!codes.includes(code)) codes.push(code);
-    }
-    if (!this.multiValued) {
-      this.single[slot] = codes.length ? codes[0] : -1;
-      return;
     }
     codes.sort((a, b) => a - b);
     const key = codes.join(',');

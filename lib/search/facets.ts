@@ -10,9 +10,14 @@ export const FACET_LIST_LIMIT = 30;
 
 export type FacetSelection = Partial<Record<FacetName, readonly string[]>>;
 
+/** A quantity, method, excitation or group value as stored and compared: trimmed, lower case. */
+export function facetValue(value: string): string {
+  return value.trim().toLowerCase();
+}
+
 /** A query's facet values as the columns store them: material by formula key (shorthands expanded), the rest trimmed. */
 export function facetSelection(query: SearchQuery): FacetSelection {
-  const clean = (values?: string[]) => (values ?? []).map((v) => v.trim().toLowerCase());
+  const clean = (values?: string[]) => (values ?? []).map(facetValue);
   const material = (query.material ?? []).flatMap((v) => {
     const key = formulaKey(v);
     return FORMULA_ALIASES[key] ? [key, ...FORMULA_ALIASES[key]] : [key];

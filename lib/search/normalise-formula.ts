@@ -46,14 +46,24 @@ const VARIABLE = /^[xyzδ]+$/u;
 
 /** Element symbols of a correctly cased formula, in order of first appearance; [] when the text is not a formula. */
 export function formulaElements(formula: string): string[] {
-  let elements = ELEMENTS_OF.get(formula);
-  if (!elements) {
-    if (ELEMENTS_OF.size >= MEMO_LIMIT) ELEMENTS_OF.clear();
-    ELEMENTS_OF.set(formula, (elements = parseElements(formula)));
-  }
-  return [...elements];
+  return [...parsed(formula).symbols];
 }
-const ELEMENTS_OF = new Map<string, string[]>();
+
+/** The same symbols lower-cased, as search keys (shared array: do not modify). */
+export function elementKeys(formula: string): readonly string[] {
+  return parsed(formula).keys;
+}
+
+function parsed(formula: string): { symbols: string[]; keys: string[] } {
+  let found = ELEMENTS_OF.get(formula);
+  if (!found) {
+    if (ELEMENTS_OF.size >= MEMO_LIMIT) ELEMENTS_OF.clear();
+    const symbols = parseElements(formula);
+    ELEMENTS_OF.set(formula, (found = { symbols, keys: symbols.map((e) => e.toLowerCase()) }));
+  }
+  return found;
+}
+const ELEMENTS_OF = new Map<string, { symbols: string[]; keys: string[] }>();
 
 function parseElements(formula: string): string[] {
   const text = fold(formula);

@@ -1,7 +1,7 @@
 // The in-process search index of published versions: FlexSearch for words, our own columns for facets, ranges,
 // order and cards. Pure (no DB, Next or React): the caller feeds it from the database and the outbox.
 import { FacetWords } from './facet-words';
-import { facetSelection, FacetColumns, selectsAnything } from './facets';
+import { facetSelection, FacetColumns, facetValue, selectsAnything } from './facets';
 import { highlightSegments, SNIPPET_CHARS } from './highlight';
 import { formulaKey, materialKeys } from './normalise-formula';
 import type { SlotKeys } from './ordering';
@@ -154,10 +154,10 @@ export class SearchIndex {
     this.table.store(slot, doc);
     const c = this.facets.columns;
     c.material.setOne(slot, formulaKey(doc.formula) || formulaKey(doc.material), doc.formula || doc.material);
-    c.quantity.set(slot, doc.quantities.map((q) => [q.trim().toLowerCase()]));
-    c.method.set(slot, doc.methods.map((m) => [m.trim().toLowerCase()]));
+    c.quantity.setMany(slot, doc.quantities.map(facetValue));
+    c.method.setMany(slot, doc.methods.map(facetValue));
     c.excitation.setOne(slot, doc.excitation ?? '');
-    c.group.setOne(slot, doc.group.slug.trim().toLowerCase(), doc.group.name);
+    c.group.setOne(slot, facetValue(doc.group.slug), doc.group.name);
     c.year.setOne(slot, String(doc.year));
     this.ranges.set(slot, doc.ranges);
     this.sparklines.set(slot, doc.sparkline);

@@ -1,8 +1,8 @@
 // The full-text part: a FlexSearch Document over the searchable fields, keyed by slot number, and the AND-of-terms
 // matching with field-weighted scores. FlexSearch only answers "which slots contain this key in this field".
 import { Document } from 'flexsearch';
-import { formulaElements } from './normalise-formula';
-import { spaceKeys, textKeys } from './tokenise';
+import { elementKeys } from './normalise-formula';
+import { addNewKeys, spaceKeys } from './tokenise';
 import type { SearchDoc } from './types';
 
 // Three FlexSearch fields keep the build fast (each field costs a pass per version): the title; a "head" of the short
@@ -27,25 +27,24 @@ type TextFields = { id: number; title: string; head: string; body: string };
  */
 export function textFields(slot: number, doc: SearchDoc, keysOfMaterial: readonly string[]): TextFields {
   const seen = new Set<string>();
-  const title = fresh(seen, textKeys(doc.title));
+  const title: string[] = [];
+  addNewKeys(doc.title, seen, title);
   // Quantities, methods, excitation and group are matched through the facet dictionaries instead (facet-words.ts).
-  const head = fresh(seen, [
-    ...keysOfMaterial,
-    ...formulaElements(doc.formula).map((e) => e.toLowerCase()),
-    ...textKeys([doc.material, ...doc.keywords, ...doc.creators].join(' ; ')),
-  ]);
-  return { id: slot, title, head, body: fresh(seen, textKeys(doc.description)) };
+  const head: string[] = [];
+  for (const key of keysOfMaterial) addKey(key, seen, head);
+  for (const element of elementKeys(doc.formula)) addKey(element, seen, head);
+  addNewKeys(doc.material, seen, head);
+  for (const keyword of doc.keywords) addNewKeys(keyword, seen, head);
+  for (const creator of doc.creators) addNewKeys(creator, seen, head);
+  const body: string[] = [];
+  addNewKeys(doc.description, seen, body);
+  return { id: slot, title: title.join(' '), head: head.join(' '), body: body.join(' ') };
 }
 
-// The keys not seen in an earlier field, space-separated.
-function fresh(seen: Set<string>, keys: readonly string[]): string {
-  const out: string[] = [];
-  for (const key of keys) {
-    if (seen.has(key)) continue;
-    seen.add(key);
-    out.push(key);
-  }
-  return out.join(' ');
+function addKey(key: string, seen: Set<string>, out: string[]): void {
+  if (seen.has(key)) return;
+  seen.add(key);
+  out.push(key);
 }
 
 export class TextMatcher {

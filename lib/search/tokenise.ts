@@ -54,6 +54,17 @@ export function textKeys(text: string): string[] {
   return keys.filter((key) => !STOPWORDS.has(key));
 }
 
+/** Appends to `out` the keys of `text` that are not stopwords and not yet in `seen` (adding them to it). */
+export function addNewKeys(text: string, seen: Set<string>, out: string[]): void {
+  const keys: string[] = [];
+  scan(text, keys, null, null);
+  for (const key of keys) {
+    if (STOPWORDS.has(key) || seen.has(key)) continue;
+    seen.add(key);
+    out.push(key);
+  }
+}
+
 // Word characters: letters, digits (₀–₉ included) and marks; tested by regex only for non-ASCII ones.
 const WORD_CHAR = /^[\p{L}\p{N}\p{M}]$/u;
 const DIGIT_CHAR = /^\p{N}$/u;
