@@ -105,9 +105,12 @@ describe('inviting a new person in Chromium', () => {
     await expect.poll(() => ownerPage.locator('main li').filter({ hasText: invitee }).count(), { timeout: 15_000 }).toBe(0);
 
     // The group's audit log shows the invitation, its acceptance and the removal, newest first.
+    // The page streams after its loading state: wait for the table before reading it.
     await ownerPage.goto(`${baseUrl}/groups/larkspur-cryogenic/audit?actor=${encodeURIComponent(owner.email)}&action=group.member_removed`);
+    await ownerPage.locator('main').getByText('Member removed').first().waitFor({ state: 'attached' });
     expect(await ownerPage.locator('main').innerText()).toContain('Member removed');
     await ownerPage.goto(`${baseUrl}/groups/larkspur-cryogenic/audit?action=group.invitation_accepted`);
+    await ownerPage.locator('main').getByText(invitee).first().waitFor({ state: 'attached' });
     expect(await ownerPage.locator('main').innerText()).toContain(invitee);
     await guest.close();
     await ownerPage.close();
