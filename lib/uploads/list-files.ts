@@ -1,20 +1,9 @@
 import 'server-only';
-import { listFileRows, type AnalysisState, type FileRole, type FileRow, type UploadState } from './repo';
+import { listFileRows, type FileRow } from './repo';
 
-/** One file of a version as the API and the deposit screen see it. */
-export type FileView = {
-  id: string;
-  name: string;
-  role: FileRole;
-  sizeBytes: number;
-  sha256: string | null;
-  uploadState: UploadState;
-  analysisState: AnalysisState;
-  /** 0..1 while the worker reads the file. */
-  analysisProgress: number;
-  analysisError: string | null;
-  createdAt: string;
-};
+// The one definition of a listed file lives with the browser code (pure types), so both sides share it.
+export type { FileView } from '@/lib/client/uploads/types';
+import type { FileView } from '@/lib/client/uploads/types';
 
 export function toFileView(row: FileRow): FileView {
   return {

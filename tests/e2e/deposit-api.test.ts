@@ -1,5 +1,5 @@
 // The deposit API over HTTP against the production build `npm test` serves, signed in as the demo author.
-// Expected behaviour: the deposit contract (issue 4, Part A): routes, statuses and the error body
+// Expected behaviour: issue 4 (deposit API): routes, statuses and the error body
 // `{ error: { code, message, details, requestId } }`; demo accounts: db/seeds/demo-accounts.json.
 import { describe, expect, it } from 'vitest';
 import demo from '@/db/seeds/demo-accounts.json';

@@ -1,5 +1,5 @@
-// PUT /api/v1/versions/:id/metadata from the browser, and what its answer means for the author (deposit contract,
-// part A): 200 saved; 422 with details.saved = true saved but some values need fixing; anything else not saved.
+// PUT /api/v1/versions/:id/metadata from the browser, and what its answer means for the author (lib/datasets/save-metadata.ts):
+// 200 saved; 422 with details.saved = true saved but some values need fixing; anything else not saved.
 
 export type PutOutcome =
   | { saved: true; complete: boolean; fieldErrors: Record<string, string> }

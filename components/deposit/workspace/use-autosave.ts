@@ -9,7 +9,7 @@ export type SaveState = { status: SaveStatus; savedAt: Date | null; message?: st
 
 const DEBOUNCE_MS = 900;
 const RETRY_MS = 8000;
-// Keys whose change makes the server analyse the files again (deposit contract, part A).
+// Keys whose change makes the server analyse the files again (lib/datasets/save-metadata.ts).
 const ANALYSIS_KEYS = ['columns', 'sample', 'measurement'] as const;
 
 function analysisInputsChanged(a: unknown, b: unknown): boolean {

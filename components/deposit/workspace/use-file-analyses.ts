@@ -13,7 +13,7 @@ export type FileAnalysis = {
   loadError?: string;
 };
 
-const POLL_MS = 1500; // the worker writes progress at most once a second (deposit contract, part B)
+const POLL_MS = 1500; // the worker writes progress at most once a second (lib/analysis, lib/uploads)
 const MAX_FAILURES = 5;
 
 const sleep = (ms: number, signal: AbortSignal) =>

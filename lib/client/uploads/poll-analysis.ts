@@ -3,7 +3,7 @@ import { retryDelayMs, type RetryPolicy, type Sleep } from './backoff';
 import type { AnalysisResponse } from './types';
 import { isRetryable } from './upload-errors';
 
-/** The worker writes progress at most once a second (deposit contract, part B); asking faster gains nothing. */
+/** The worker writes progress at most once a second (lib/analysis, lib/uploads); asking faster gains nothing. */
 export const ANALYSIS_POLL_MS = 1500;
 
 /**

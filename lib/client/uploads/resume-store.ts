@@ -12,7 +12,7 @@ export type ResumeRecord = {
 };
 
 export const RESUME_KEY = 'ohmstead.uploads.v1';
-/** The server clears unfinished uploads after 24 h (deposit contract, part B); older records point at nothing. */
+/** The server clears unfinished uploads after 24 h (lib/analysis, lib/uploads); older records point at nothing. */
 export const RESUME_MAX_AGE_MS = 24 * 60 * 60 * 1000;
 
 function isRecord(v: unknown): v is ResumeRecord {

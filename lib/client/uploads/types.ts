@@ -1,5 +1,5 @@
-// Shapes of the deposit upload API (notes: deposit contract, part B), as the browser sees them.
-// Kept here rather than imported from lib/uploads so no server module reaches the client bundle.
+// Shapes of the deposit upload API (app/api/v1/uploads, lib/uploads), shared by the server and the browser.
+// Pure types here, so that no server module reaches the client bundle.
 
 export type FileRole = 'raw' | 'processed' | 'other';
 export type UploadState = 'pending' | 'verified' | 'failed';

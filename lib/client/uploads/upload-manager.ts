@@ -8,7 +8,7 @@ import { describeUploadError } from './upload-errors';
 import { describePhase, rowFromServer, type UploadRow } from './upload-state';
 import { UploadTask, type UploadDeps } from './upload-task';
 
-/** Parts in flight on the page at once (deposit contract, part C). */
+/** Parts in flight on the page at once (one file's parts, three at a time). */
 export const PARALLEL_PARTS = 3;
 
 export type UploadManagerOptions = {

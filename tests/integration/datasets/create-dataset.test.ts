@@ -1,4 +1,4 @@
-// createDataset against real MariaDB and the DOI fake. Expected behaviour: the deposit contract (issue 4, Part A)
+// createDataset against real MariaDB and the DOI fake. Expected behaviour: issue 4 (create a dataset)
 // and product.md "Life of a dataset" (a draft DOI is reserved when a dataset is created).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { db } from '@/lib/db';

@@ -1,5 +1,5 @@
-// saveMetadata, getVersionView and listDrafts against real MariaDB. Expected behaviour: the deposit contract
-// (issue 4, Part A); who may do what: the permission table in lib/access/permissions.ts; field messages and
+// saveMetadata, getVersionView and listDrafts against real MariaDB. Expected behaviour: issue 4
+// (put metadata); who may do what: the permission table in lib/access/permissions.ts; field messages and
 // paths: lib/schema/validate-transport-dataset.ts; the complete record: tests/fixtures/transport/cu-wire-rt.meta.json.
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';

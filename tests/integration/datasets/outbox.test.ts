@@ -1,5 +1,5 @@
 // The transactional outbox against real MariaDB, and the 'doi.reserve' job against the DOI fake.
-// Rules from the deposit contract (issue 4, Part A): claims are safe with several processes, retries back off
+// Rules of the outbox (issue 4): claims are safe with several processes, retries back off
 // exponentially (10 s, 20 s, … capped at 10 min), and a replayed reservation never makes a second DOI.
 import { randomBytes } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';

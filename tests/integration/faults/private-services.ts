@@ -56,7 +56,7 @@ function privateService(name: string, port: number, starter: (layout: DataLayout
 
 const env = (name: string): string => {
   const value = process.env[name];
-  if (!value) throw new Error(`${name} is not set: source .data/env.sh first (rules.md)`);
+  if (!value) throw new Error(`${name} is not set: source .data/env.sh first (npm run services writes it)`);
   return value;
 };
 

@@ -1,4 +1,4 @@
-// Suffix format from the deposit contract (issue 4): "ohm." + 8 Crockford base32 characters in two groups of four.
+// Our DOI suffix format (issue 4): "ohm." + 8 Crockford base32 characters in two groups of four.
 // Alphabet from Crockford's base32 definition (crockford.com/base32.html): 0-9 and A-Z without I, L, O, U.
 import { describe, expect, it } from 'vitest';
 import { CROCKFORD_ALPHABET, OHM_SUFFIX_PATTERN, newDoi, newDoiSuffix } from '@/lib/doi/doi-suffix';

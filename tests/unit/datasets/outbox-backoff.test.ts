@@ -1,4 +1,4 @@
-// Schedule from the deposit contract: exponential backoff capped at 10 minutes; first retry after 10 s (our choice).
+// Our retry schedule: exponential backoff capped at 10 minutes; first retry after 10 s (our choice).
 import { describe, expect, it } from 'vitest';
 import { MAX_RETRY_MS, retryDelayMs } from '@/lib/outbox/backoff';
 

@@ -1,4 +1,4 @@
-// readJsonBody with real Fetch API Requests (Node's undici): size limit from the deposit contract (metadata ≤ 1 MB).
+// readJsonBody with real Fetch API Requests (Node's undici): size limit of issue 4's metadata route (≤ 1 MB).
 import { describe, expect, it } from 'vitest';
 import { readJsonBody } from '@/lib/datasets/read-json-body';
 import { AppError } from '@/lib/errors';
