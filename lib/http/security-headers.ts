@@ -24,22 +24,14 @@ export function newNonce(): string {
   return btoa(String.fromCharCode(...bytes));
 }
 
-/**
- * Pages whose browser code compiles the shared JSON Schema with Ajv, which builds its validator with `new Function`:
- * the deposit workspace validates the measurement record live. Only these pages get 'unsafe-eval'; precompiling the
- * validator (Ajv standalone code) would remove the need.
- */
-export function needsSchemaCompiler(pathname: string): boolean {
-  return pathname === '/deposit' || pathname.startsWith('/deposit/');
-}
-
-export function contentSecurityPolicy(nonce: string, e: SecurityEnv, options: { allowEval?: boolean } = {}): string {
+export function contentSecurityPolicy(nonce: string, e: SecurityEnv): string {
   // Browsers upload to and download from presigned object-store URLs directly.
   const objectStore = originOf(e.S3_PUBLIC_ENDPOINT) ?? originOf(e.S3_ENDPOINT);
   // next-auth answers the ORCID sign-in form with a redirect to the issuer; Chromium checks form-action on it.
   const orcid = originOf(e.ORCID_ISSUER);
-  // React's development build evaluates strings for its stack traces; production never needs 'unsafe-eval'.
-  const devEval = e.NODE_ENV === 'development' || options.allowEval ? " 'unsafe-eval'" : '';
+  // React's development build evaluates strings for its stack traces; production never needs 'unsafe-eval' (the record
+  // validator the deposit workspace runs in the browser is compiled ahead of time: lib/schema/generate-transport-dataset-validator.ts).
+  const devEval = e.NODE_ENV === 'development' ? " 'unsafe-eval'" : '';
   const directives = [
     "default-src 'self'",
     `script-src 'self' 'nonce-${nonce}' 'strict-dynamic' 'wasm-unsafe-eval'${devEval}`,
@@ -59,7 +51,7 @@ export function contentSecurityPolicy(nonce: string, e: SecurityEnv, options: { 
 /** Every header for a response to `pathname`; HSTS only when the site is served over https (RFC 6797 §7.2). */
 export function securityHeaders(pathname: string, nonce: string, e: SecurityEnv): Record<string, string> {
   const headers: Record<string, string> = {
-    'Content-Security-Policy': contentSecurityPolicy(nonce, e, { allowEval: needsSchemaCompiler(pathname) }),
+    'Content-Security-Policy': contentSecurityPolicy(nonce, e),
     'X-Content-Type-Options': 'nosniff',
     // Reviewer links carry a secret token in the path: never leak it in a Referer.
     'Referrer-Policy': pathname === '/review' || pathname.startsWith('/review/') ? 'no-referrer' : 'strict-origin-when-cross-origin',

@@ -1,9 +1,8 @@
-import Ajv2020, { type ErrorObject, type ValidateFunction } from 'ajv/dist/2020';
-import addFormats from 'ajv-formats';
+import type { ErrorObject, ValidateFunction } from 'ajv';
 import schema from '@/schemas/transport-dataset.schema.json';
 import { fieldLabel, type SchemaNode } from './field-labels';
 import { plainMessage } from './messages';
-import { isValidOrcid } from './orcid';
+import compiledValidator from './transport-dataset.validate.generated';
 import type { TransportDataset } from './transport-dataset.types';
 
 /** One problem with one field; `path` is dotted ('sample.geometry.thickness.value', 'creators.0.name'). */
@@ -24,16 +23,8 @@ export const TRANSPORT_DATASET_SCHEMA_ID: string = schema.$id;
 const isCompletenessError = (e: ErrorObject) =>
   e.keyword === 'required' || ((e.keyword === 'minLength' || e.keyword === 'minItems') && Number(e.params.limit) === 1);
 
-let compiled: ValidateFunction | undefined;
-function validator(): ValidateFunction {
-  if (!compiled) {
-    const ajv = new Ajv2020({ allErrors: true, strict: true, verbose: true }) // verbose: errors carry parentSchema (title, examples);
-    addFormats(ajv);
-    ajv.addFormat('orcid', { type: 'string', validate: isValidOrcid });
-    compiled = ajv.compile(schema);
-  }
-  return compiled;
-}
+// Compiled ahead of time by Ajv (strict, allErrors, verbose) from the same schema: see generate-transport-dataset-validator.ts.
+const validator = (): ValidateFunction => compiledValidator as ValidateFunction;
 
 const root = schema as unknown as SchemaNode;
 

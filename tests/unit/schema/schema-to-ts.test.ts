@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { generateTransportDatasetTypes, TRANSPORT_DATASET_TYPES_PATH } from '@/lib/schema/generate-transport-dataset-types';
+import { generateTransportDatasetValidator, TRANSPORT_DATASET_VALIDATOR_PATH } from '@/lib/schema/generate-transport-dataset-validator';
 import { pascalCase, schemaToTypeScript, SchemaToTsError, typeOf } from '@/lib/schema/schema-to-ts';
 
 describe('schema-to-ts generator', () => {
@@ -55,5 +56,12 @@ describe('schema-to-ts generator', () => {
     expect(() => typeOf({ title: 'no type' })).toThrow(/without type/);
     expect(() => schemaToTypeScript({ type: 'object', properties: {}, $defs: { 'a-b': { type: 'string' }, aB: { type: 'string' } } }, { rootName: 'R', source: 's' })).toThrow(/AB/);
     expect(pascalCase('positiveLength')).toBe('PositiveLength');
+  });
+});
+
+describe('precompiled record validator', () => {
+  it('keeps the committed standalone validator identical to what Ajv compiles from the schema', () => {
+    const committed = readFileSync(path.resolve(import.meta.dirname, '../../..', TRANSPORT_DATASET_VALIDATOR_PATH), 'utf8');
+    expect(generateTransportDatasetValidator()).toBe(committed);
   });
 });
