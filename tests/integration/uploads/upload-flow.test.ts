@@ -126,7 +126,8 @@ describe('small files, roles and names', () => {
     expect(begin.partCount).toBe(1);
     await putParts(begin, begin.parts, text);
     const { file } = await completeUpload({ user: lab.member, fileId: begin.fileId });
-    expect(file).toMatchObject({ uploadState: 'verified', analysisState: 'queued', role: 'raw' });
+    expect(file).toMatchObject({ uploadState: 'verified', role: 'raw' });
+    expect(['queued', 'running', 'done']).toContain(file.analysisState); // the stack's worker may be on it already
     const changed = await updateFile({ user: lab.member, fileId: begin.fileId, input: { role: 'processed' } });
     expect(changed.file.role).toBe('processed');
     const bad = await updateFile({ user: lab.member, fileId: begin.fileId, input: { role: 'final' } }).catch((e: unknown) => e);
@@ -144,7 +145,9 @@ describe('small files, roles and names', () => {
     expect(begin.partCount).toBe(1);
     await putParts(begin, begin.parts, empty);
     const { file } = await completeUpload({ user: lab.member, fileId: begin.fileId });
-    expect(file).toMatchObject({ uploadState: 'verified', sizeBytes: 0, sha256, analysisState: 'queued' });
+    expect(file).toMatchObject({ uploadState: 'verified', sizeBytes: 0, sha256 });
+    // Queued for analysis; the stack's worker may already have taken it, and an empty table fails analysis.
+    expect(['queued', 'running', 'failed']).toContain(file.analysisState);
   });
 
   it('keeps names with ../, / and control characters as given and never puts them in a storage key', async () => {
