@@ -1,12 +1,10 @@
 import Link from 'next/link';
 import type { SearchHit } from '@/lib/search/types';
 import { formatRange } from '@/lib/format/quantity';
+import { EXCITATION_WORDS, METHOD_WORDS } from './facet-labels';
 import { Highlighted } from './highlighted';
 import { Sparkline } from './sparkline';
 import { TemperatureBar } from './temperature-bar';
-
-const METHOD_WORDS: Record<string, string> = { 'four-wire': 'four-wire', 'two-wire': 'two-wire', 'van-der-pauw': 'van der Pauw', 'hall-bar': 'Hall bar' };
-const EXCITATION_WORDS: Record<string, string> = { dc: 'DC', 'dc-reversal': 'DC with reversal', ac: 'AC lock-in' };
 
 /** One result: group, title (highlighted), material, methods, ranges, the main curve and the temperature span. */
 export function SearchHitCard({ hit }: { hit: SearchHit }) {
@@ -24,7 +22,7 @@ export function SearchHitCard({ hit }: { hit: SearchHit }) {
         </h3>
         {hit.highlights.description && <p className="line-clamp-2 text-sm text-slate-700"><Highlighted segments={hit.highlights.description} fallback="" /></p>}
         <p className="text-sm text-slate-700">{[d.material || d.formula, ...tags].filter(Boolean).join(' · ')}</p>
-        {field && <p className="text-xs text-slate-600">Field {formatRange(field[0], field[1], 'T')}</p>}
+        {field && <p className="text-xs text-slate-600">{field[0] === 0 && field[1] === 0 ? 'Zero field' : `Field ${formatRange(field[0], field[1], 'T')}`}</p>}
         <p className="font-mono text-xs text-slate-600">{d.doi ?? 'DOI registration pending'} · v{d.versionNumber}</p>
         {d.embargoed && (
           <p className="flex items-center gap-1 text-xs font-medium text-amber-900">
