@@ -50,7 +50,8 @@ async function insert(db: Knex): Promise<void> {
       const doc = corpus.make(i);
       const datasetId = randomUUID();
       const versionId = randomUUID();
-      const publishedAt = new Date(Date.UTC(doc.year, i % 12, 1 + (i % 28), 9));
+      // Spread over the corpus years, but never after the load: a version cannot have been published in the future.
+      const publishedAt = new Date(Math.min(Date.UTC(doc.year, i % 12, 1 + (i % 28), 9), started - i * 1000));
       const title = `[bench] ${doc.title}`.slice(0, 300);
       const record = { ...template, title, description: `Synthetic bench record ${i}. ${doc.description}`, keywords: doc.keywords };
       datasets.push({ id: datasetId, group_id: gid });

@@ -7,6 +7,7 @@ import { ensureDebianPackages } from './stack/apt';
 import { migrate } from './stack/app-setup';
 import { handleSignals, interruptedBy, seconds } from './stack/foreground';
 import { type Stack, StackStartError, describeStartError, startStack } from './stack/index';
+import { writeEnvFile } from './stack/env-file';
 import { rel } from './stack/layout';
 import { ServiceStartError } from './stack/proc';
 
@@ -20,8 +21,6 @@ async function finish(code: number): Promise<never> {
 
 handleSignals(() => void finish(0));
 
-const shellQuote = (v: string) => `'${v.replace(/'/g, `'\\''`)}'`;
-
 async function main(): Promise<void> {
   await ensureDebianPackages(['mariadb-server']);
   stack = await startStack('dev', { command: 'npm run services', script: 'scripts/services.ts' });
@@ -34,8 +33,7 @@ async function main(): Promise<void> {
     return finish(1);
   }
   if (firstRun) writeFileSync(seedStamp, JSON.stringify({ seededAt: new Date().toISOString() }) + '\n');
-  const envFile = path.join(stack.layout.dir, 'env.sh');
-  writeFileSync(envFile, Object.entries(stack.env).map(([k, v]) => `${k}=${shellQuote(v)}`).join('\n') + '\n');
+  const envFile = writeEnvFile(stack);
   console.log(`services ready in ${seconds(started)} s; settings in ${rel(envFile)} (set -a; . ${rel(envFile)}). Stop: Ctrl-C`);
   await new Promise(() => undefined);
 }

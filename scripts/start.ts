@@ -2,6 +2,7 @@
 import { existsSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { ensureDebianPackages } from './stack/apt';
+import { writeEnvFile } from './stack/env-file';
 import { demoAccountLines, migrate } from './stack/app-setup';
 import { handleSignals, interruptedBy, seconds } from './stack/foreground';
 import { type Stack, StackStartError, describeStartError, startStack } from './stack/index';
@@ -42,6 +43,8 @@ async function main(): Promise<void> {
     console.error(`✗ migrations failed (${m.note}); see the output above.`);
     return finish(1);
   } else if (firstRun) writeFileSync(seedStamp, JSON.stringify({ seededAt: new Date().toISOString() }) + '\n');
+  // The settings for scripts run by hand against this stack (bench fixture, bench:load, reindex), ports included.
+  const envFile = writeEnvFile(stack);
 
   if (buildIsCurrent(stack)) console.log('build: sources unchanged since the last `npm start` build, reusing .next/');
   else {
@@ -66,6 +69,7 @@ async function main(): Promise<void> {
       '',
       `Mail: nothing leaves this machine; messages land in ${rel(stack.env.MAIL_DIR)}/ — read them at ${url}/dev/mailbox`,
       `Logs: ${rel(stack.layout.logs)}/   Data: ${rel(stack.layout.dir)}/ (kept between runs; wipe with npm run reset)`,
+      `Settings for scripts run by hand: set -a; . ${rel(envFile)}; set +a`,
       'Stop: Ctrl-C',
       '',
     ].join('\n'),

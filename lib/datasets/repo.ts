@@ -7,18 +7,26 @@ export type PublishedCard = {
   published_at: Date | null; embargo_until: string | null; group_name: string; group_slug: string;
 };
 
-/** The newest published versions, for the home page (the search index replaces this for queries). */
+/**
+ * The newest published versions, for the home page (the search index replaces this for queries). The newest `limit`
+ * are picked from dataset_versions alone, in (state, published_at) index order, before the joins: joined first,
+ * MariaDB 10.11 reads the tiny groups table through a join buffer, which loses the index order and sorts every
+ * published version (16 s at 100k versions in bench/load-fixture.ts, against 40 ms this way).
+ */
 export async function listRecentPublished(limit = 6, titleContains?: string): Promise<PublishedCard[]> {
-  const q = db()('dataset_versions as v')
+  const newest = db()('dataset_versions')
+    .where('state', 'published')
+    .orderBy([{ column: 'published_at', order: 'desc' }, { column: 'id', order: 'desc' }])
+    .limit(limit)
+    .select('id', 'dataset_id', 'title', 'version_number', 'doi', 'published_at', 'embargo_until');
+  if (titleContains) newest.whereRaw('title LIKE ?', [`%${titleContains.replace(/[\\%_]/g, (c) => `\\${c}`)}%`]);
+  return db()
+    .from(newest.as('v'))
     .join('datasets as d', 'd.id', 'v.dataset_id')
     .join('groups as g', 'g.id', 'd.group_id')
-    .where('v.state', 'published')
-    .orderBy('v.published_at', 'desc')
-    .limit(limit)
+    .orderBy([{ column: 'v.published_at', order: 'desc' }, { column: 'v.id', order: 'desc' }])
     .select('v.id as version_id', 'd.id as dataset_id', 'v.title', 'v.version_number', 'v.doi', 'v.published_at',
       db().raw("DATE_FORMAT(v.embargo_until, '%Y-%m-%d') as embargo_until"), 'g.name as group_name', 'g.slug as group_slug');
-  if (titleContains) q.whereRaw('v.title LIKE ?', [`%${titleContains.replace(/[\\%_]/g, (c) => `\\${c}`)}%`]);
-  return q;
 }
 
 export async function countDatasetsByState(): Promise<Record<string, number>> {
