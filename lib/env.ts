@@ -26,6 +26,8 @@ export type ServerEnv = {
   ORCID_CLIENT_ID?: string;
   ORCID_CLIENT_SECRET?: string;
   LOG_LEVEL?: 'debug' | 'info' | 'warn' | 'error';
+  /** lib/http/client-address.ts reads it. */
+  TRUSTED_PROXY_HOPS?: string;
   /** Bytes, as a decimal string; lib/uploads/limits.ts reads it. */
   MAX_UPLOAD_BYTES?: string;
 };

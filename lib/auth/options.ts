@@ -3,6 +3,7 @@ import type { NextAuthOptions } from 'next-auth';
 import CredentialsProvider from 'next-auth/providers/credentials';
 import EmailProvider from 'next-auth/providers/email';
 import { env } from '@/lib/env';
+import { clientAddress } from '@/lib/http/client-address';
 import { recordAudit } from '@/lib/audit/record-audit';
 import { knexAdapter } from './repo-adapter';
 import { signInWithPassword } from './sign-in-with-password';
@@ -11,8 +12,7 @@ import { linkOrcidSignIn, OrcidSignInError } from '@/lib/users/link-orcid-accoun
 import { claimsFromIdToken, ORCID_PROVIDER_ID, orcidProvider, type OrcidIdToken } from './orcid-provider';
 
 function clientIp(headers: Record<string, unknown> | undefined): string {
-  const forwarded = headers?.['x-forwarded-for'];
-  return (typeof forwarded === 'string' ? forwarded.split(',')[0]?.trim() : '') || 'unknown';
+  return clientAddress(headers) ?? 'unknown';
 }
 
 export function authOptions(): NextAuthOptions {

@@ -2,6 +2,7 @@ import 'server-only';
 import { currentUser, type SessionUser } from '@/lib/auth/session';
 import { env } from '@/lib/env';
 import { AppError } from '@/lib/errors';
+import { clientAddress } from '@/lib/http/client-address';
 import { CROSS_SITE_MESSAGE, isCrossSiteMutation } from '@/lib/http/cross-site';
 import { API_PER_IP_ANONYMOUS, API_PER_TOKEN, enforceRateLimit } from '@/lib/tokens/api-rate-limit';
 import { authenticateToken, REFUSAL_MESSAGES } from '@/lib/tokens/authenticate-token';
@@ -13,10 +14,9 @@ import { hasScope, scopeForRequest, type TokenScope } from '@/lib/tokens/scopes'
  */
 export type RequestUser = SessionUser & { via: 'session' | 'token'; scopes?: TokenScope[]; tokenId?: string };
 
-/** The caller's address for per-IP limits: the first X-Forwarded-For entry (set by our reverse proxy), else X-Real-IP. */
+/** The caller's address for per-IP limits (see client-address.ts for which X-Forwarded-For entry is trusted). */
 export function requestIp(req: Request): string {
-  const forwarded = req.headers.get('x-forwarded-for')?.split(',')[0]?.trim();
-  return forwarded || req.headers.get('x-real-ip')?.trim() || 'unknown';
+  return clientAddress(req.headers) ?? 'unknown';
 }
 
 /** Session users hold every scope; a token must hold `scope` (or one that implies it), else 403. */

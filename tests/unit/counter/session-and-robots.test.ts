@@ -62,8 +62,8 @@ describe('isRobotUserAgent (isbot)', () => {
 });
 
 describe('viewerFromHeaders', () => {
-  it('takes the first forwarded address, else X-Real-IP, and the user agent', () => {
-    const h = new Headers({ 'x-forwarded-for': '198.51.100.4, 10.0.0.1', 'user-agent': 'Firefox' });
+  it('takes the address our proxy appended (not what the client wrote before it), else X-Real-IP, and the user agent', () => {
+    const h = new Headers({ 'x-forwarded-for': '10.0.0.1, 198.51.100.4', 'user-agent': 'Firefox' });
     expect(viewerFromHeaders(h, 'usr-1')).toEqual({ userId: 'usr-1', ip: '198.51.100.4', userAgent: 'Firefox' });
     expect(viewerFromHeaders(new Headers({ 'x-real-ip': '203.0.113.9' }))).toEqual({ userId: null, ip: '203.0.113.9', userAgent: null });
   });

@@ -7,6 +7,7 @@ import { currentUser } from '@/lib/auth/session';
 import { formValues, runAction, type ActionState } from '@/lib/http/action';
 import { createToken } from '@/lib/tokens/create-token';
 import { revokeToken } from '@/lib/tokens/revoke-token';
+import { clientAddress } from '@/lib/http/client-address';
 import type { CreatedTokenData } from '@/components/tokens/create-token-form';
 
 async function signedIn() {
@@ -16,8 +17,7 @@ async function signedIn() {
 }
 
 async function clientIp(): Promise<string | null> {
-  const h = await headers();
-  return h.get('x-forwarded-for')?.split(',')[0]?.trim() || h.get('x-real-ip') || null;
+  return clientAddress(await headers());
 }
 
 /** "Create token": the secret goes back to this form only; the list below re-renders without it. */
