@@ -1,8 +1,10 @@
-// The background worker: file analysis, the outbox (DOI reservations, …) and the cleanup of abandoned uploads, off
-// the request path. Run as `node --conditions=react-server --import tsx scripts/worker.ts` (the condition makes
-// 'server-only' importable outside Next); scripts/stack starts it for npm start / npm test. Several may run at once.
+// The background worker: file analysis, the outbox (DOI reservations, package builds, …) and the cleanup of abandoned
+// uploads, off the request path. Run as `node --conditions=react-server --import tsx scripts/worker.ts` (the condition
+// makes 'server-only' importable outside Next); scripts/stack starts it for npm start / npm test. Several may run at
+// once.
 import { runAnalysisOnce } from '@/lib/analysis/run-analysis';
 import { db } from '@/lib/db';
+import { packageOutboxHandlers } from '@/lib/downloads/package-build-job';
 import { env } from '@/lib/env';
 import { log } from '@/lib/log';
 import { processOutboxOnce } from '@/lib/outbox/process-outbox';
@@ -18,10 +20,12 @@ const MAX_BACKOFF_MS = 30_000;
 const stopping = new AbortController();
 let loopDone: Promise<void> = Promise.resolve();
 
+// Each wait removes its abort listener when it ends, so the idle loops never pile listeners on the signal.
 const sleep = (ms: number) =>
   new Promise<void>((resolve) => {
-    const t = setTimeout(resolve, ms);
-    stopping.signal.addEventListener('abort', () => (clearTimeout(t), resolve()), { once: true });
+    const wake = () => (clearTimeout(t), resolve());
+    const t = setTimeout(() => (stopping.signal.removeEventListener('abort', wake), resolve()), ms);
+    stopping.signal.addEventListener('abort', wake, { once: true });
   });
 
 // The same failure (tables not migrated yet, a service down) is logged once a minute, not on every turn.
@@ -76,14 +80,34 @@ async function loop(): Promise<void> {
   }
 }
 
+// Cache builds of packages (lib/downloads/package-build-job.ts) are outbox jobs too, but one may take minutes: they run
+// one at a time in a loop of their own, so mail, DOIs and analysis never wait for them. Stopping aborts a running
+// build (nothing is stored; the outbox retries it).
+async function packageLoop(): Promise<void> {
+  const handlers = packageOutboxHandlers({ signal: stopping.signal });
+  let failures = 0;
+  while (!stopping.signal.aborted) {
+    let claimed = false;
+    try {
+      claimed = (await processOutboxOnce(handlers, { limit: 1 })).claimed > 0;
+      failures = 0;
+    } catch (error) {
+      failures += 1;
+      logFailure('package builds', error);
+    }
+    if (!claimed) await sleep(failures ? Math.min(MAX_BACKOFF_MS, OUTBOX_EVERY_MS * 2 ** failures) : OUTBOX_EVERY_MS);
+  }
+}
+
 env(); // fail fast, with every missing setting named, before announcing readiness
 onStop(async () => {
   stopping.abort();
   await loopDone;
   await db().destroy();
 });
-loopDone = loop().catch((error: unknown) => {
+const crashed = (error: unknown) => {
   log('error', 'worker loop crashed', { error: error instanceof Error ? error.stack : String(error) });
   process.exit(1);
-});
-announceReady('worker running: analysis, outbox, upload cleanup');
+};
+loopDone = Promise.all([loop().catch(crashed), packageLoop().catch(crashed)]).then(() => undefined);
+announceReady('worker running: analysis, outbox, package builds, upload cleanup');

@@ -4,20 +4,20 @@ import { buildPackageStream, type PackageCompression } from '@/lib/packages/buil
 import { log } from '@/lib/log';
 import type { PackageInput } from '@/lib/packages/types';
 import { defaultStore, type ObjectStore } from '@/lib/storage/objects';
-import type { StreamUploadOutcome } from '@/lib/storage/upload-stream';
 import { authoriseDownload, countDownload, type DownloadGrant, type Downloader, type DownloadRequest } from './authorise-download';
 import { contentDisposition } from './content-disposition';
 import { loadPackageInput } from './load-package-input';
-import { cachedPackageUrl, packageCacheKey, teeIntoCache } from './package-cache';
+import { queuePackageBuild } from './package-build-job';
+import { cachedPackageUrl, packageCacheKey } from './package-cache';
 import type { DownloadReply } from './reply';
 import { reportDownloadFailure } from './report-failure';
 import { relayStream } from './web-streams';
 
 /**
- * Bytes per write to the client: archiver's 64 KiB chunks are joined to 512 KiB. bench/package.ts (HTTP phase, 1 GiB)
- * measured 4.4–5.6 s of server CPU per GiB unjoined, 3.1–3.6 s at 256 KiB, 2.7–3.1 s at 512 KiB, 2.9–3.2 s at 1 MiB.
+ * Source chunks under this size (zip headers, tag files) are joined before they go to the client; payload arrives in
+ * PAYLOAD_CHUNK_BYTES chunks (build-package-stream.ts) and passes uncopied.
  */
-const JOIN = 512 * 1024;
+const JOIN = 64 * 1024;
 
 export type DownloadPackageArgs = {
   versionId: string;
@@ -29,8 +29,11 @@ export type DownloadPackageArgs = {
   compression?: PackageCompression;
 };
 
-/** The reply, and for a first download of a cacheable package the upload of the cached copy (settles, never rejects). */
-export type PackageReply = DownloadReply & { cacheKey: string | null; cached?: Promise<StreamUploadOutcome> };
+/**
+ * The reply; for a cacheable package its cache key, and when it streamed, the outbox job that builds the cached copy
+ * (null when the job could not be queued: the download goes on, a later one queues it).
+ */
+export type PackageReply = DownloadReply & { cacheKey: string | null; buildJobId?: number | null };
 
 /**
  * Cached: published versions downloaded by anyone but a reviewer link (embargoed ones too: only those allowed ever get
@@ -55,30 +58,41 @@ export type StreamPackageArgs = {
   input: PackageInput;
   store: ObjectStore;
   compression?: PackageCompression;
-  /** Where to keep a copy for later requests; null streams without caching. */
-  cacheKey: string | null;
   /** The build failed part-way (missing object, storage down): called once; the client's stream errors as well. */
   onFailure: (error: Error) => void;
 };
 
 /**
- * The streamed 200 answer for a package: buildPackageStream pulled chunk by chunk as the client reads, teed into the
- * cache when cacheKey is set. The route and bench/package.ts both send exactly this stream.
+ * The streamed 200 answer for a package: buildPackageStream pulled chunk by chunk as the client reads, nothing else
+ * waiting on it (the cached copy is built apart, package-build-job.ts). The route and bench/package.ts both send
+ * exactly this stream.
  */
-export function streamPackageReply(args: StreamPackageArgs): PackageReply {
+export function streamPackageReply(args: StreamPackageArgs): DownloadReply {
   const pkg = buildPackageStream(args.input, { store: args.store, compression: args.compression ?? 'store' });
-  const headers = packageHeaders(pkg.fileName);
-  if (!args.cacheKey) return { status: 200, headers, body: relayStream(pkg.stream, { onError: args.onFailure }, { joinBytes: JOIN }), cacheKey: null };
-  const tee = teeIntoCache(pkg.stream, args.store, args.cacheKey, args.onFailure, JOIN);
-  return { status: 200, headers, body: tee.stream, cacheKey: args.cacheKey, cached: tee.cached };
+  return { status: 200, headers: packageHeaders(pkg.fileName), body: relayStream(pkg.stream, { onError: args.onFailure }, { joinBytes: JOIN }) };
+}
+
+/** Queues the worker's build of the cached copy; a failure to queue is logged and never fails the download. */
+async function queueCacheBuild(
+  versionId: string, input: PackageInput, cacheKey: string, compression: PackageCompression, baggingDate: Date, requestId: string,
+): Promise<number | null> {
+  try {
+    const payloadBytes = input.files.reduce((sum, f) => sum + f.sizeBytes, 0);
+    const job = await queuePackageBuild({ versionId, cacheKey, compression, baggingDate: baggingDate.toISOString() }, payloadBytes);
+    return job.jobId;
+  } catch (error) {
+    log('warn', 'could not queue the build of a cached package', { requestId, key: cacheKey, error: error instanceof Error ? error.message : String(error) });
+    return null;
+  }
 }
 
 /**
  * The zip package (BagIt bag) of one version, after lib/access allowed 'download_files' at `now`. A cached package
  * answers 302 to a presigned GET valid for 5 minutes; otherwise the package streams from storage as the client reads
- * (and, when cacheable, is stored for next time). A missing object errors the stream (the client sees a broken
- * transfer, never a short valid zip), is logged with the request id and audited as 'package.failed'. Every download
- * counts as one COUNTER request (through a reviewer link: the link's use log). HEAD answers the headers only.
+ * and, when cacheable, an outbox job (one per cache key) has the worker build the cached copy for later requests. A
+ * missing object errors the stream (the client sees a broken transfer, never a short valid zip), is logged with the
+ * request id and audited as 'package.failed'. Every download counts as one COUNTER request (through a reviewer link:
+ * the link's use log). HEAD answers the headers only.
  */
 export async function downloadPackage(args: DownloadPackageArgs): Promise<PackageReply> {
   const now = args.now ?? new Date();
@@ -93,17 +107,14 @@ export async function downloadPackage(args: DownloadPackageArgs): Promise<Packag
   const cachedUrl = cacheKey ? await cachedPackageUrl(store, cacheKey, fileName) : null;
   await countDownload({ downloader: args.downloader, versionId: grant.version.id, fileId: null, request: args.request, requestId: args.requestId, now });
   if (cachedUrl) return { status: 302, headers: { location: cachedUrl, 'cache-control': 'private, no-store' }, body: null, cacheKey };
-  // Two first downloads at once both upload; either copy is complete, and the later one simply replaces the other.
+  // The job's build uses this download's bagging date, so the cached copy holds the same bytes as this stream.
+  const bagged: PackageInput = { ...input, baggingDate: now };
+  const buildJobId = cacheKey ? await queueCacheBuild(grant.version.id, bagged, cacheKey, compression, now, args.requestId) : undefined;
   const reply = streamPackageReply({
-    input, store, compression, cacheKey,
+    input: bagged, store, compression,
     onFailure: (error) => void reportDownloadFailure({
       action: 'package.failed', requestId: args.requestId, downloader: args.downloader, groupId: grant.version.group_id, versionId: grant.version.id, error,
     }),
   });
-  void reply.cached?.then((outcome) => {
-    if (!outcome.stored && outcome.reason === 'failed') {
-      log('warn', 'could not keep a package in the cache', { requestId: args.requestId, key: cacheKey, error: outcome.error?.message });
-    }
-  });
-  return reply;
+  return { ...reply, cacheKey, ...(buildJobId !== undefined ? { buildJobId } : {}) };
 }

@@ -4,7 +4,8 @@ import { AppError } from '@/lib/errors';
 import { plural } from '@/lib/format/plural';
 import type { PackageInput } from '@/lib/packages/types';
 import { loadVersionDataCiteInput } from '@/lib/publishing/datacite-input';
-import type { DownloadGrant, Downloader } from './authorise-download';
+import type { VersionRow } from '@/lib/datasets/repo-versions';
+import type { Downloader } from './authorise-download';
 import { listDownloadableFiles } from './repo';
 
 async function versionRecord(versionId: string, now: Date): Promise<DataCiteInput> {
@@ -27,9 +28,9 @@ async function versionRecord(versionId: string, now: Date): Promise<DataCiteInpu
 /**
  * What the package of a version is built from: its DataCite record and verified files. A reviewer's copy is marked
  * confidential (reviewCopy), and in anonymous mode leaves out creators, affiliations and the group; drafts and
- * versions in review claim no publication date (unpublished).
+ * versions in review claim no publication date (unpublished). The worker's cache builds load it as an anonymous user's.
  */
-export async function loadPackageInput(grant: DownloadGrant, downloader: Downloader, now: Date): Promise<PackageInput> {
+export async function loadPackageInput(grant: { version: Pick<VersionRow, 'id' | 'state'> }, downloader: Downloader, now: Date): Promise<PackageInput> {
   const record: Partial<DataCiteInput> = await versionRecord(grant.version.id, now);
   // The payload list comes from the files below; the kind is always 'version' for a package.
   delete record.files;

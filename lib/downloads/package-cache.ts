@@ -4,13 +4,12 @@ import type { PackageCompression } from '@/lib/packages/build-package-stream';
 import type { PackageInput } from '@/lib/packages/types';
 import { objectExists, type ObjectStore } from '@/lib/storage/objects';
 import { presignObjectGet } from '@/lib/storage/presign-get';
-import { startStreamUpload, type StreamUploadOutcome } from '@/lib/storage/upload-stream';
 import { contentDisposition } from './content-disposition';
-import { relayStream } from './web-streams';
 
-// Built packages of published versions are kept in storage and handed out by presigned URL on later requests.
-// Only published, non-anonymous, non-review packages are cached (see download-package.ts): drafts change, and review
-// copies (anonymous or marked confidential) are made for one referee and must never be served to anyone else.
+// Built packages of published versions are kept in storage and handed out by presigned URL on later requests; the
+// worker builds them (package-build-job.ts). Only published, non-anonymous, non-review packages are cached (see
+// download-package.ts): drafts change, and review copies (anonymous or marked confidential) are made for one referee
+// and must never be served to anyone else.
 
 /** Bump when the package layout or builder changes what a zip holds, so no old zip is served for new inputs. */
 export const PACKAGE_FORMAT_VERSION = 1;
@@ -51,29 +50,4 @@ export function packageCacheKey(versionId: string, input: PackageInput, compress
 export async function cachedPackageUrl(store: ObjectStore, key: string, fileName: string): Promise<string | null> {
   if (!(await objectExists(store, key))) return null;
   return presignObjectGet(store, key, { expiresInS: PACKAGE_URL_TTL_S, contentDisposition: contentDisposition(fileName), contentType: 'application/zip' });
-}
-
-/**
- * The package stream for the client, with every chunk also written to `key` in storage. Reading goes at the pace of
- * the slower of the two (bounded memory, no queue grows). The object appears only when the whole zip has reached
- * the client and the upload completes; a disconnect or a build failure aborts the upload, so no partial package is
- * ever visible. A failing upload never fails the client's download: it just leaves nothing cached.
- */
-export function teeIntoCache(
-  source: ReadableStream<Uint8Array>, store: ObjectStore, key: string, onError: (error: Error) => void, joinBytes = 0,
-): { stream: ReadableStream<Uint8Array>; cached: Promise<StreamUploadOutcome> } {
-  const upload = startStreamUpload(store, key, { contentType: 'application/zip' });
-  let writing = true;
-  const stream = relayStream(source, {
-    onChunk: async (chunk) => {
-      if (writing) writing = await upload.write(chunk);
-    },
-    onEnd: () => void upload.finish(),
-    onError: (error) => {
-      void upload.abort(error);
-      onError(error);
-    },
-    onCancel: () => void upload.abort(new Error('the client disconnected')),
-  }, { joinBytes });
-  return { stream, cached: upload.outcome };
 }

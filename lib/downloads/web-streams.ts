@@ -61,8 +61,6 @@ export function exactBodyStream(body: Readable, lengthBytes: number, onError?: (
 }
 
 export type RelayHooks = {
-  /** Awaited after each chunk went to the client: a slow consumer here (e.g. a cache upload) slows the reading. */
-  onChunk?: (chunk: Uint8Array) => Promise<unknown>;
   /** The source ended normally and the client has every byte. */
   onEnd?: () => void;
   /** The source failed: the client's stream errors with the same error, so it sees a broken transfer. */
@@ -73,23 +71,24 @@ export type RelayHooks = {
 
 export type RelayOptions = {
   /**
-   * Source chunks are joined until at least this many bytes before they go on (the first chunk goes at once): fewer,
-   * larger socket writes (download-package.ts says what that saved).
+   * Source chunks smaller than this are joined with the ones after them until at least this many bytes (the first
+   * chunk goes at once); larger chunks pass as they are, uncopied.
    */
   joinBytes?: number;
 };
 
-/** Passes a web stream on, pulling from the source only when the client pulls, with hooks for the end. */
+/**
+ * Passes a web stream on, pulling from the source only when the client pulls, with hooks for the end. Nothing is
+ * awaited per chunk but the source's read: the client's pace alone decides the reading.
+ */
 export function relayStream(source: ReadableStream<Uint8Array>, hooks: RelayHooks, options: RelayOptions = {}): ReadableStream<Uint8Array> {
   const reader = source.getReader();
   const joinBytes = options.joinBytes ?? 0;
   let cancelled = false;
   let first = true;
-  const send = async (controller: ReadableStreamDefaultController<Uint8Array>, parts: Uint8Array[], size: number) => {
-    const chunk = parts.length === 1 ? parts[0]! : Buffer.concat(parts, size);
+  const send = (controller: ReadableStreamDefaultController<Uint8Array>, parts: Uint8Array[], size: number) => {
     first = false;
-    controller.enqueue(chunk);
-    await hooks.onChunk?.(chunk);
+    controller.enqueue(parts.length === 1 ? parts[0]! : Buffer.concat(parts, size));
   };
   return new ReadableStream<Uint8Array>({
     async pull(controller) {
@@ -108,7 +107,7 @@ export function relayStream(source: ReadableStream<Uint8Array>, hooks: RelayHook
         }
         if (cancelled) return;
         if (next.done) {
-          if (size > 0) await send(controller, parts, size);
+          if (size > 0) send(controller, parts, size);
           hooks.onEnd?.();
           controller.close();
           return;
@@ -117,7 +116,7 @@ export function relayStream(source: ReadableStream<Uint8Array>, hooks: RelayHook
         size += next.value.length;
         if (first) break;
       }
-      await send(controller, parts, size);
+      send(controller, parts, size);
     },
     async cancel(reason) {
       cancelled = true;

@@ -1,6 +1,6 @@
-// Package downloads against the running MariaDB and s3rver: a valid bag (lib/bagit verifyBag), the cache (302 to a
-// presigned GET holding the same bytes), drafts and review copies never cached, a cancel that stops storage reads and
-// leaves no cached object, a missing object that breaks the stream and is audited, and an anonymous copy with no names.
+// Package downloads against the running MariaDB and s3rver: refusals, drafts and review copies never cached, a cancel
+// that stops storage reads, a missing object that breaks the stream and is audited, and an anonymous copy with no
+// names. The cached copy of published packages (built by the worker, then a 302) is in package-cache-build.test.ts.
 import { randomBytes } from 'node:crypto';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import type { IncomingMessage } from 'node:http';
@@ -8,13 +8,13 @@ import { tmpdir } from 'node:os';
 import path from 'node:path';
 import type { Readable } from 'node:stream';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import yauzl from 'yauzl';
 import { verifyBag } from '@/lib/bagit/verify-bag';
 import { db } from '@/lib/db';
 import { downloadPackage, type PackageReply } from '@/lib/downloads/download-package';
-import { PACKAGE_URL_TTL_S } from '@/lib/downloads/package-cache';
+import { PACKAGE_BUILD_TOPIC } from '@/lib/downloads/package-build-job';
+import { listOutboxRows } from '@/lib/outbox/repo';
 import { ObjectMissingError, defaultStore, listObjects, objectExists, storeAt, type ObjectStore } from '@/lib/storage/objects';
-import { closeDb, collect, dropDownloadLabs, identifying, makeDownloadLab, makeVersion, MiB, request, reviewerLink, type DownloadLab } from './fixtures';
+import { closeDb, collect, dropDownloadLabs, identifying, makeDownloadLab, makeVersion, MiB, request, reviewerLink, zipEntries, type DownloadLab } from './fixtures';
 
 let lab: DownloadLab;
 const scratch = mkdtempSync(path.join(tmpdir(), 'ohm-dl-it-'));
@@ -37,18 +37,6 @@ function saveZip(bytes: Buffer): string {
   return file;
 }
 
-async function zipEntries(file: string): Promise<{ name: string; bytes: Buffer }[]> {
-  const zip = await yauzl.openPromise(file, { autoClose: false });
-  const out: { name: string; bytes: Buffer }[] = [];
-  for await (const entry of zip.eachEntry()) {
-    const chunks: Buffer[] = [];
-    for await (const c of await zip.openReadStreamPromise(entry)) chunks.push(c as Buffer);
-    out.push({ name: entry.fileName, bytes: Buffer.concat(chunks) });
-  }
-  zip.close();
-  return out;
-}
-
 const streamOf = (reply: PackageReply) => reply.body as ReadableStream<Uint8Array>;
 
 /** A store on its own client that hands every GetObject body it opens to `seen` (to watch their sockets). */
@@ -66,46 +54,7 @@ function watchedStore(seen: Readable[]): ObjectStore {
   return store;
 }
 
-describe('a published package', () => {
-  let versionId: string;
-  let first: Buffer;
-
-  it('streams on the first request, verifies as a bag, and is stored once the client has it all', async () => {
-    const made = await makeVersion(lab, {
-      state: 'published',
-      files: [{ name: 'rxx_1p8K.csv', bytes: RXX }, { name: 'lockin-raw.bin', bytes: randomBytes(6 * MiB + 11), mediaType: 'application/octet-stream' }],
-    });
-    versionId = made.versionId;
-    const reply = await downloadPackage({ versionId, downloader: anonymous, request: request(), requestId: 'pkg-first' });
-    expect(reply.status).toBe(200);
-    expect(reply.headers['content-type']).toBe('application/zip');
-    expect(reply.headers['content-disposition']).toMatch(/^attachment; filename="ohmstead-ohm\.d[0-9a-f]{8}\.zip"; filename\*=UTF-8''ohmstead-ohm\.d[0-9a-f]{8}\.zip$/);
-    expect(reply.cacheKey).toMatch(new RegExp(`^packages/${versionId}/[0-9a-f]{64}\\.zip$`));
-    first = await collect(streamOf(reply));
-    const report = await verifyBag(saveZip(first));
-    expect(report.problems).toEqual([]);
-    expect(report).toMatchObject({ valid: true, payloadFiles: 2, payloadBytes: RXX.length + 6 * MiB + 11 });
-    // 6 MiB + a few KiB is more than one 5 MiB part: the cached copy went up as a multipart upload.
-    expect(await reply.cached).toEqual({ stored: true });
-    expect(await objectExists(defaultStore(), reply.cacheKey!)).toBe(true);
-  });
-
-  it('answers the second request with 302 to a presigned GET of the same bytes', async () => {
-    const reply = await downloadPackage({ versionId, downloader: { kind: 'user', user: lab.outsider }, request: request(), requestId: 'pkg-second' });
-    expect(reply.status).toBe(302);
-    expect(reply.body).toBeNull();
-    const url = new URL(reply.headers.location!);
-    expect(url.searchParams.get('X-Amz-Expires')).toBe(String(PACKAGE_URL_TTL_S));
-    const res = await fetch(url);
-    expect(res.status).toBe(200);
-    expect(res.headers.get('content-disposition')).toMatch(/^attachment; filename="ohmstead-ohm\.d[0-9a-f]{8}\.zip"/);
-    expect(Buffer.from(await res.arrayBuffer()).equals(first)).toBe(true);
-    // Both downloads are COUNTER requests for the whole package (file_id null); HEAD is not.
-    await downloadPackage({ versionId, downloader: anonymous, request: request({}, 'HEAD'), requestId: 'pkg-head' });
-    const events = await db()('download_events').where('version_id', versionId).orderBy('id').select('kind', 'file_id', 'user_id');
-    expect(events).toEqual([{ kind: 'request', file_id: null, user_id: null }, { kind: 'request', file_id: null, user_id: lab.outsider.id }]);
-  });
-
+describe('packages that are refused', () => {
   it('refuses the package while embargoed to outsiders, and when withdrawn to the group', async () => {
     const embargoed = await makeVersion(lab, { state: 'published', embargoUntil: inDays(30), files: [{ name: 'a.csv', bytes: RXX }] });
     const refused = await downloadPackage({ versionId: embargoed.versionId, downloader: { kind: 'user', user: lab.outsider }, request: request(), requestId: 'x' }).catch((e: unknown) => e);
@@ -123,6 +72,7 @@ describe('packages that are never cached', () => {
     expect(reply).toMatchObject({ status: 200, cacheKey: null });
     expect((await verifyBag(saveZip(await collect(streamOf(reply))))).valid).toBe(true);
     expect(await listObjects(defaultStore(), `packages/${draft.versionId}/`)).toEqual([]);
+    expect(await listOutboxRows(PACKAGE_BUILD_TOPIC, draft.versionId)).toEqual([]);
   });
 
   it('gives an anonymous reviewer an embargoed package with no creator, affiliation or group name in any entry', async () => {
@@ -138,6 +88,7 @@ describe('packages that are never cached', () => {
     expect(leaks).toEqual([]);
     expect(entries.find((e) => e.name.endsWith('/README.md'))!.bytes.toString()).toContain('**Confidential review copy.**');
     expect(await listObjects(defaultStore(), `packages/${embargoed.versionId}/`)).toEqual([]);
+    expect(await listOutboxRows(PACKAGE_BUILD_TOPIC, embargoed.versionId)).toEqual([]);
     // Counted in the link's use log only: no user, and the link stands for the session.
     expect(await db()('download_events').where('version_id', embargoed.versionId).select('kind', 'file_id', 'user_id', 'reviewer_link_id'))
       .toEqual([{ kind: 'request', file_id: null, user_id: null, reviewer_link_id: link.linkId }]);
@@ -145,7 +96,7 @@ describe('packages that are never cached', () => {
 });
 
 describe('faults', () => {
-  it('stops reading storage when the client cancels a first download, and caches nothing', async () => {
+  it('stops reading storage when the client cancels a first download; the cached copy is left to its queued build', async () => {
     const big = await makeVersion(lab, {
       state: 'published',
       files: [{ name: 'sweep-a.bin', bytes: randomBytes(24 * MiB), mediaType: 'application/octet-stream' }, { name: 'sweep-b.bin', bytes: randomBytes(24 * MiB), mediaType: 'application/octet-stream' }],
@@ -168,11 +119,11 @@ describe('faults', () => {
     await new Promise((r) => setTimeout(r, 400));
     expect(socket.bytesRead).toBe(readAtCancel);
     expect(bodies).toHaveLength(1);
-    expect(await reply.cached).toEqual({ stored: false, reason: 'aborted' });
     expect(await objectExists(defaultStore(), reply.cacheKey!)).toBe(false);
+    expect((await listOutboxRows(PACKAGE_BUILD_TOPIC, big.versionId)).map((j) => j.id)).toEqual([reply.buildJobId]);
   });
 
-  it('errors the stream for a missing object, audits package.failed with the request id, and caches nothing', async () => {
+  it('errors the stream for a missing object, audits package.failed with the request id, and stores nothing', async () => {
     const broken = await makeVersion(lab, {
       state: 'published',
       files: [{ name: 'a-present.csv', bytes: RXX }, { name: 'b-missing.csv', bytes: `never stored ${randomBytes(6).toString('hex')}`, stored: false }],
@@ -186,7 +137,6 @@ describe('faults', () => {
     await expect(read).rejects.toThrow(ObjectMissingError);
     // No end-of-central-directory record (PK\x05\x06, APPNOTE 4.3.16): nothing takes the bytes for a whole zip.
     expect(Buffer.concat(chunks).includes(Buffer.from([0x50, 0x4b, 0x05, 0x06]))).toBe(false);
-    expect(await reply.cached).toMatchObject({ stored: false, reason: 'aborted' });
     expect(await objectExists(defaultStore(), reply.cacheKey!)).toBe(false);
     await expect.poll(() => db()('audit_log').where({ action: 'package.failed', target_id: broken.versionId }).count({ n: '*' }).first()).toEqual({ n: 1 });
     const row = await db()('audit_log').where({ action: 'package.failed', target_id: broken.versionId }).first('details', 'actor_kind', 'actor_user_id');

@@ -3,7 +3,9 @@
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
+import yauzl from 'yauzl';
 import { db } from '@/lib/db';
+import { PACKAGE_BUILD_TOPIC } from '@/lib/downloads/repo-package-builds';
 import { createReviewerLink } from '@/lib/review/create-reviewer-link';
 import { resolveReviewerLink, type ResolvedLink } from '@/lib/review/resolve-reviewer-link';
 import { defaultStore, deletePrefix } from '@/lib/storage/objects';
@@ -120,6 +122,19 @@ export function identifying(lab: DownloadLab): string[] {
 /** A download request as the route hands it on. */
 export const request = (headers: Record<string, string> = {}, method = 'GET') => ({ method, headers: new Headers(headers) });
 
+/** Every entry of a zip file on disk, by name, with its bytes. */
+export async function zipEntries(file: string): Promise<{ name: string; bytes: Buffer }[]> {
+  const zip = await yauzl.openPromise(file, { autoClose: false });
+  const out: { name: string; bytes: Buffer }[] = [];
+  for await (const entry of zip.eachEntry()) {
+    const chunks: Buffer[] = [];
+    for await (const c of await zip.openReadStreamPromise(entry)) chunks.push(c as Buffer);
+    out.push({ name: entry.fileName, bytes: Buffer.concat(chunks) });
+  }
+  zip.close();
+  return out;
+}
+
 /** Reads a web stream to the end. */
 export async function collect(stream: ReadableStream<Uint8Array>): Promise<Buffer> {
   const chunks: Uint8Array[] = [];
@@ -132,6 +147,7 @@ export async function dropDownloadLabs(): Promise<void> {
   for (const lab of labs.splice(0)) {
     if (lab.versionIds.length) {
       await db()('download_events').whereIn('version_id', lab.versionIds).delete();
+      await db()('outbox').where('topic', PACKAGE_BUILD_TOPIC).whereIn('aggregate_id', lab.versionIds).delete();
       await db()('files').whereIn('version_id', lab.versionIds).delete();
       for (const v of lab.versionIds) await deletePrefix(defaultStore(), `packages/${v}/`);
     }

@@ -1,0 +1,225 @@
+// The cached copy of a published package, against the running MariaDB and s3rver: the first download streams and
+// queues one outbox build job (one per cache key, however many downloads come first); the worker's handler builds the
+// copy, a valid bag (lib/bagit verifyBag) byte for byte what the first client got; the next download gets 302 to it.
+// A build that fails part-way leaves nothing under the key, downloads keep streaming, and the outbox retries it. A
+// stopped build reads storage no further.
+import { createHash, randomBytes } from 'node:crypto';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import type { IncomingMessage } from 'node:http';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import type { Readable } from 'node:stream';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { verifyBag } from '@/lib/bagit/verify-bag';
+import { db } from '@/lib/db';
+import { buildPackageIntoCache } from '@/lib/downloads/build-cached-package';
+import { downloadPackage, type PackageReply } from '@/lib/downloads/download-package';
+import { loadPackageInput } from '@/lib/downloads/load-package-input';
+import { buildHoldMs, packageOutboxHandlers, PACKAGE_BUILD_TOPIC, runPackageBuild } from '@/lib/downloads/package-build-job';
+import { PACKAGE_URL_TTL_S } from '@/lib/downloads/package-cache';
+import { findVersionRow } from '@/lib/datasets/repo-versions';
+import { processOutboxOnce, tryOutboxJobNow } from '@/lib/outbox/process-outbox';
+import { findOutboxRow, listOutboxRows } from '@/lib/outbox/repo';
+import { defaultStore, deleteObjects, listObjects, objectExists, readObject, storeAt, type ObjectStore } from '@/lib/storage/objects';
+import { putObject } from '@/lib/storage/put-object';
+import { closeDb, collect, dropDownloadLabs, makeDownloadLab, makeVersion, MiB, request, zipEntries, type DownloadLab, type StoredFile } from './fixtures';
+
+let lab: DownloadLab;
+const scratch = mkdtempSync(path.join(tmpdir(), 'ohm-cache-it-'));
+const RXX = 'B (T),Rxx (Ohm),T (K)\n-9.0,101.25,1.80\n0.0,98.50,1.80\n9.0,101.27,1.80\n';
+const anonymous = { kind: 'user' as const, user: null };
+const sha256Hex = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
+
+beforeAll(async () => {
+  lab = await makeDownloadLab();
+});
+afterAll(async () => {
+  await dropDownloadLabs();
+  await closeDb();
+  rmSync(scratch, { recursive: true, force: true });
+});
+
+function saveZip(bytes: Buffer): string {
+  const file = path.join(mkdtempSync(path.join(scratch, 'zip-')), 'package.zip');
+  writeFileSync(file, bytes);
+  return file;
+}
+
+const streamOf = (reply: PackageReply) => reply.body as ReadableStream<Uint8Array>;
+
+async function storedBytes(key: string): Promise<Buffer> {
+  const chunks: Uint8Array[] = [];
+  for await (const c of (await readObject(defaultStore(), key)).body) chunks.push(c);
+  return Buffer.concat(chunks);
+}
+
+/** The waiting build jobs of a version, as the outbox holds them. */
+const buildJobs = (versionId: string) => listOutboxRows(PACKAGE_BUILD_TOPIC, versionId);
+
+/** A zip's manifest-sha256.txt as { path: digest }. */
+async function manifestOf(zip: string): Promise<Record<string, string>> {
+  const manifest = (await zipEntries(zip)).find((e) => e.name.endsWith('/manifest-sha256.txt'))!.bytes.toString('utf8');
+  return Object.fromEntries(manifest.trim().split('\n').map((line) => line.split('  ').reverse() as [string, string]));
+}
+
+describe('the cached copy of a published package', () => {
+  let versionId: string;
+  let files: StoredFile[];
+  let first: Buffer;
+  let jobId: number;
+  let cacheKey: string;
+
+  it('streams the first download and queues exactly one build, held back while that download runs', async () => {
+    const made = await makeVersion(lab, {
+      state: 'published',
+      files: [{ name: 'rxx_1p8K.csv', bytes: RXX }, { name: 'lockin-raw.bin', bytes: randomBytes(9 * MiB + 11), mediaType: 'application/octet-stream' }],
+    });
+    ({ versionId, files } = made);
+    const reply = await downloadPackage({ versionId, downloader: anonymous, request: request(), requestId: 'cache-first' });
+    expect(reply.status).toBe(200);
+    expect(reply.headers['content-type']).toBe('application/zip');
+    expect(reply.cacheKey).toMatch(new RegExp(`^packages/${versionId}/[0-9a-f]{64}\\.zip$`));
+    cacheKey = reply.cacheKey!;
+    first = await collect(streamOf(reply));
+    const report = await verifyBag(saveZip(first));
+    expect(report.problems).toEqual([]);
+    expect(report).toMatchObject({ valid: true, payloadFiles: 2, payloadBytes: RXX.length + 9 * MiB + 11 });
+
+    const jobs = await buildJobs(versionId);
+    expect(jobs).toHaveLength(1);
+    jobId = jobs[0]!.id;
+    expect(reply.buildJobId).toBe(jobId);
+    expect(jobs[0]).toMatchObject({ attempts: 0, processedAt: null, lastError: null });
+    expect(jobs[0]!.payload).toEqual({ versionId, cacheKey, compression: 'store', baggingDate: expect.stringMatching(/^\d{4}-\d\d-\d\dT/) });
+    // Held back by buildHoldMs (30 s and more), so no worker reads the same objects while the first client does.
+    expect(jobs[0]!.nextAttemptAt!.getTime()).toBeGreaterThan(Date.now() + 20_000);
+    expect(buildHoldMs(0)).toBe(30_000);
+    expect(await objectExists(defaultStore(), cacheKey)).toBe(false);
+  });
+
+  it('still streams while the copy is not built, and queues no second job, even for two downloads at once', async () => {
+    const replies = await Promise.all([1, 2].map((n) =>
+      downloadPackage({ versionId, downloader: { kind: 'user', user: lab.outsider }, request: request(), requestId: `cache-again-${n}` })));
+    for (const reply of replies) {
+      expect(reply).toMatchObject({ status: 200, cacheKey, buildJobId: jobId });
+      expect((await verifyBag(saveZip(await collect(streamOf(reply))))).valid).toBe(true);
+    }
+    expect((await buildJobs(versionId)).map((j) => j.id)).toEqual([jobId]);
+  });
+
+  it('is built by the worker\'s job: a valid bag, byte for byte the first download, with the files\' digests', async () => {
+    expect(await tryOutboxJobNow(jobId, packageOutboxHandlers())).toBe('done');
+    expect(await findOutboxRow(jobId)).toMatchObject({ attempts: 1, processedAt: expect.any(Date), lastError: null });
+    const cached = await storedBytes(cacheKey);
+    const zip = saveZip(cached);
+    const report = await verifyBag(zip);
+    expect(report.problems).toEqual([]);
+    expect(report).toMatchObject({ valid: true, payloadFiles: 2, payloadBytes: RXX.length + 9 * MiB + 11, algorithms: ['sha256'] });
+    // The manifest lists the digests the database holds, and the payload in the zip has exactly those digests.
+    const expected = Object.fromEntries(files.map((f) => [`data/${f.name}`, f.sha256]));
+    expect(await manifestOf(zip)).toEqual(expected);
+    const payload = (await zipEntries(zip)).filter((e) => e.name.includes('/data/'));
+    expect(Object.fromEntries(payload.map((e) => [e.name.slice(e.name.indexOf('/') + 1), sha256Hex(e.bytes)]))).toEqual(expected);
+    // Built with the first download's bagging date: the same bytes that client got.
+    expect(cached.equals(first)).toBe(true);
+  });
+
+  it('answers the next download with 302 to a presigned GET of the same bytes, and builds nothing twice', async () => {
+    const reply = await downloadPackage({ versionId, downloader: { kind: 'user', user: lab.outsider }, request: request(), requestId: 'cache-302' });
+    expect(reply.status).toBe(302);
+    expect(reply.body).toBeNull();
+    expect(reply.buildJobId).toBeUndefined();
+    const url = new URL(reply.headers.location!);
+    expect(url.searchParams.get('X-Amz-Expires')).toBe(String(PACKAGE_URL_TTL_S));
+    const res = await fetch(url);
+    expect(res.status).toBe(200);
+    expect(res.headers.get('content-disposition')).toMatch(/^attachment; filename="ohmstead-ohm\.d[0-9a-f]{8}\.zip"/);
+    expect(Buffer.from(await res.arrayBuffer()).equals(first)).toBe(true);
+    expect((await buildJobs(versionId)).map((j) => j.id)).toEqual([jobId]);
+    // A job for a key that is filled already does nothing (e.g. a second job queued just before the first finished).
+    const job = (await findOutboxRow(jobId))!;
+    expect(await runPackageBuild(job.payload, job)).toBe('already_cached');
+    // Every download counted as one COUNTER request for the whole package (file_id null): 1 + 2 streamed, 1 redirected.
+    expect(await db()('download_events').where({ version_id: versionId, file_id: null }).count({ n: '*' }).first()).toEqual({ n: 4 });
+  });
+});
+
+describe('a cache build that fails', () => {
+  it('leaves nothing under the key; downloads still stream whole packages; the outbox retries the build', async () => {
+    // The first payload file spans more than one 8 MiB part, so part of the zip is uploaded before the build fails.
+    const made = await makeVersion(lab, {
+      state: 'published',
+      files: [{ name: 'a-sweep.bin', bytes: randomBytes(12 * MiB), mediaType: 'application/octet-stream' }, { name: 'b-rxx.csv', bytes: `${RXX}# run ${randomBytes(4).toString('hex')}\n` }],
+    });
+    const download = async (requestId: string) => {
+      const reply = await downloadPackage({ versionId: made.versionId, downloader: anonymous, request: request(), requestId });
+      expect(reply.status).toBe(200);
+      const report = await verifyBag(saveZip(await collect(streamOf(reply))));
+      expect(report).toMatchObject({ valid: true, payloadFiles: 2 });
+      return reply;
+    };
+    const reply = await download('failing-build-1');
+    const key = reply.cacheKey!;
+    const late = made.files[1]!;
+
+    // The second file disappears from storage after the first download had it: the build breaks off after the first.
+    await deleteObjects(defaultStore(), [late.storageKey]);
+    expect(await tryOutboxJobNow(reply.buildJobId!, packageOutboxHandlers())).toBe('failed');
+    const failed = (await findOutboxRow(reply.buildJobId!))!;
+    expect(failed).toMatchObject({ attempts: 1, processedAt: null, lastError: `object ${late.storageKey} does not exist` });
+    expect(failed.nextAttemptAt!.getTime()).toBeGreaterThan(Date.now()); // retried after the outbox's backoff
+    expect(await objectExists(defaultStore(), key)).toBe(false);
+    expect(await listObjects(defaultStore(), `packages/${made.versionId}/`)).toEqual([]);
+
+    // The file is back: downloads stream whole packages meanwhile, and the waiting job is not queued a second time.
+    await putObject(defaultStore(), late.storageKey, late.bytes);
+    const again = await download('failing-build-2');
+    expect(again.buildJobId).toBe(reply.buildJobId);
+    expect((await listOutboxRows(PACKAGE_BUILD_TOPIC, made.versionId)).map((j) => j.id)).toEqual([reply.buildJobId]);
+
+    // Once due (as after the backoff), the outbox retries it: here, or the stack's worker if it comes first.
+    await db()('outbox').where('id', reply.buildJobId!).update({ next_attempt_at: null });
+    await expect.poll(async () => {
+      await processOutboxOnce(packageOutboxHandlers(), { limit: 10 });
+      return (await findOutboxRow(reply.buildJobId!))?.processedAt ?? null;
+    }, { timeout: 60_000, interval: 500 }).toBeInstanceOf(Date);
+    expect(await objectExists(defaultStore(), key)).toBe(true);
+    expect((await downloadPackage({ versionId: made.versionId, downloader: anonymous, request: request(), requestId: 'failing-build-3' })).status).toBe(302);
+  }, 90_000);
+});
+
+describe('a cache build that is stopped', () => {
+  it('stops reading storage at once and stores nothing', async () => {
+    const made = await makeVersion(lab, {
+      state: 'published',
+      files: [{ name: 'sweep-a.bin', bytes: randomBytes(24 * MiB), mediaType: 'application/octet-stream' }, { name: 'sweep-b.bin', bytes: randomBytes(24 * MiB), mediaType: 'application/octet-stream' }],
+    });
+    const version = (await findVersionRow(made.versionId))!;
+    const input = await loadPackageInput({ version }, anonymous, new Date());
+    const bodies: Readable[] = [];
+    const store: ObjectStore = storeAt(process.env.S3_ENDPOINT!);
+    store.client.middlewareStack.add(
+      (next) => async (args) => {
+        const out = await next(args);
+        const body = (out?.output as { Body?: unknown } | undefined)?.Body;
+        if (body && typeof (body as Readable).destroy === 'function') bodies.push(body as Readable);
+        return out;
+      },
+      { step: 'initialize', name: 'watchBodies' },
+    );
+    const key = `packages/${made.versionId}/stopped-${randomBytes(4).toString('hex')}.zip`;
+    const stop = new AbortController();
+    const build = buildPackageIntoCache({ input, store, key, signal: stop.signal });
+    await expect.poll(() => (bodies[0] as IncomingMessage | undefined)?.socket?.bytesRead ?? 0, { timeout: 20_000, interval: 20 }).toBeGreaterThan(2 * MiB);
+    stop.abort();
+    await expect(build).rejects.toThrow(/aborted/i);
+    expect(bodies).toHaveLength(1);
+    expect(bodies[0]!.destroyed).toBe(true);
+    const socket = (bodies[0] as IncomingMessage).socket;
+    const readAtStop = socket.bytesRead;
+    await new Promise((r) => setTimeout(r, 400));
+    expect(socket.bytesRead).toBe(readAtStop);
+    expect(bodies).toHaveLength(1);
+    expect(await objectExists(defaultStore(), key)).toBe(false);
+  }, 60_000);
+});
