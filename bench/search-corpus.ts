@@ -38,10 +38,10 @@ const cap = (w: string) => w[0].toUpperCase() + w.slice(1);
  * A string as the database driver hands it over: decoded afresh from UTF-8 bytes, so one flat string. (Strings built
  * by concatenation are ropes in V8 and would make the index look bigger than it is with real rows.)
  */
-const asRead = (s: string) => Buffer.from(s, 'utf8').toString('utf8');
+export const asRead = (s: string) => Buffer.from(s, 'utf8').toString('utf8');
 
 /** A deterministic id in UUID form (36 characters, like the database's), so id strings cost what real ones do. */
-function uuidLike(seed: number, n: number, kind: number): string {
+export function uuidLike(seed: number, n: number, kind: number): string {
   const r = prng(seed * 7 + n * 3 + kind);
   const hex = Array.from({ length: 32 }, () => Math.floor(r() * 16).toString(16)).join('');
   return asRead(`${hex.slice(0, 8)}-${hex.slice(8, 12)}-4${hex.slice(13, 16)}-a${hex.slice(17, 20)}-${hex.slice(20)}`);

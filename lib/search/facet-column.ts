@@ -17,6 +17,8 @@ export class FacetColumn {
   /** Multi-valued: the code list per slot (lists shared between equal sets), and while ≤ 32 values, a bit set. */
   readonly lists: number[][] = [];
   bits: Int32Array;
+  /** Called with the slot after every change of its values (facet-packs.ts keeps packed codes from it). */
+  onChange: ((slot: number) => void) | null = null;
   private readonly sharedLists = new Map<string, number[]>();
 
   constructor(readonly multiValued: boolean, capacity: number) {
@@ -67,6 +69,7 @@ export class FacetColumn {
   /** A single-valued facet's value (with its display label); '' means none. */
   setOne(slot: number, value: string, label?: string): void {
     this.single[slot] = value === '' ? -1 : this.code(value, label);
+    this.onChange?.(slot);
   }
 
   /** A multi-valued facet's values; empty strings are ignored. */
@@ -85,6 +88,7 @@ export class FacetColumn {
     let bits = 0;
     for (const code of codes) if (code < BITS) bits |= 1 << code;
     this.bits[slot] = bits;
+    this.onChange?.(slot);
   }
 
   clear(slot: number): void {
@@ -92,6 +96,7 @@ export class FacetColumn {
       this.lists[slot] = EMPTY;
       this.bits[slot] = 0;
     } else this.single[slot] = -1;
+    this.onChange?.(slot);
   }
 
   /** Selection flags per code for the given values; unknown values select nothing (and so match nothing). */

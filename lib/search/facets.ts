@@ -1,7 +1,9 @@
 // Facet values of every indexed version as small integer codes, the facet filters of a query, and their counts.
 // FlexSearch's own tag filter is unreliable in 0.8.212 (stack.md), so filtering and counting happen here, in tight
-// loops over typed arrays (facet-column.ts), one pass per facet over the candidates of a query.
+// loops over typed arrays (facet-column.ts): one pass per filtering facet over the candidates of a query, then one
+// counting pass per facet, or per pack of small facets (facet-packs.ts).
 import { FacetColumn } from './facet-column';
+import { FacetPacks } from './facet-packs';
 import { formulaKey, FORMULA_ALIASES } from './normalise-formula';
 import { FACET_NAMES, type FacetBucket, type FacetName, type SearchQuery } from './types';
 
@@ -41,6 +43,7 @@ export function selectsAnything(selection: FacetSelection): boolean {
 export class FacetColumns {
   readonly columns: Record<FacetName, FacetColumn>;
   private readonly ordered: FacetColumn[];
+  private readonly packs: FacetPacks;
   private fail = new Uint8Array(0);
 
   constructor(capacity: number) {
@@ -53,10 +56,13 @@ export class FacetColumns {
       year: new FacetColumn(false, capacity),
     };
     this.ordered = FACET_NAMES.map((name) => this.columns[name]);
+    this.packs = new FacetPacks(this.ordered);
+    this.packs.grow(capacity);
   }
 
   grow(capacity: number): void {
     for (const column of this.ordered) column.grow(capacity);
+    this.packs.grow(capacity);
     this.fail = new Uint8Array(capacity);
   }
 
@@ -72,12 +78,16 @@ export class FacetColumns {
   filterAndCount(slots: Int32Array, length: number, selection: FacetSelection): { passed: number; counts: Int32Array[] } {
     const fail = this.fail.length >= length ? this.fail : (this.fail = new Uint8Array(length));
     fail.fill(0, 0, length);
-    let active = false;
+    if (!selectsAnything(selection)) return { passed: length, counts: this.countAll(slots, length, fail, 0) };
+    let active = 0;
     FACET_NAMES.forEach((name, f) => {
       const values = selection[name];
       if (!values?.length) return;
       this.ordered[f].markFailures(slots, length, this.ordered[f].selection(values), fail, 1 << f);
-      active = true;
+      // A slot failing two facets counts for none of them and never passes: drop it, so later passes read fewer
+      // (and every slot counted below fails at most one facet).
+      if (active !== 0) length = dropDoubleFailures(slots, fail, length);
+      active |= 1 << f;
     });
     const counts = this.countAll(slots, length, fail, active);
     let passed = 0;
@@ -85,16 +95,20 @@ export class FacetColumns {
     return { passed, counts };
   }
 
-  // Each facet in its own tight loop (faster than one loop over all six); a facet's own failures are ignored for its
-  // count. Single-valued facets count codes; multi-valued ones with few values count bit patterns, expanded after.
-  private countAll(slots: Int32Array, length: number, fail: Uint8Array, active: boolean): Int32Array[] {
+  // Small facets in packs, one pass per pack (facet-packs.ts); each other facet in its own tight loop (faster than one
+  // loop over all). A facet's own failures are ignored for its count. Single-valued facets count codes; multi-valued
+  // ones with few values count bit patterns, expanded after. `active`: bit f set when facet f filters.
+  private countAll(slots: Int32Array, length: number, fail: Uint8Array, active: number): Int32Array[] {
+    const counts: Int32Array[] = [];
+    for (const pack of this.packs.current()) this.packs.count(pack, slots, length, fail, active, counts);
     return this.ordered.map((column, f) => {
+      if (counts[f]) return counts[f];
       const shared = column.countKeys();
       if (!shared) return column.count(slots, length, fail, 1 << f);
       const { keys, size } = shared;
       const histogram = new Int32Array(size);
       const others = ~(1 << f) & 0xff;
-      if (!active) {
+      if (active === 0) {
         for (let i = 0; i < length; i++) {
           const key = keys[slots[i]];
           if (key >= 0) histogram[key]++;
@@ -129,6 +143,18 @@ export class FacetColumns {
     });
     return out;
   }
+}
+
+/** Keeps (in order, at the front) the slots with at most one failure bit; returns how many. */
+function dropDoubleFailures(slots: Int32Array, fail: Uint8Array, length: number): number {
+  let kept = 0;
+  for (let i = 0; i < length; i++) {
+    const bits = fail[i];
+    if ((bits & (bits - 1)) !== 0) continue;
+    slots[kept] = slots[i];
+    fail[kept++] = bits;
+  }
+  return kept;
 }
 
 function bucket(column: FacetColumn, code: number, count: number, selected: boolean): FacetBucket {

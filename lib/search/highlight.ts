@@ -1,5 +1,5 @@
 // Marks the words a query matched as plain segments (never HTML), so a card can render them without injecting markup.
-import { tokenSpans } from './tokenise';
+import { tokenArrays } from './tokenise';
 import type { HighlightSegment } from './types';
 
 /** Characters of description shown around the first match. */
@@ -17,22 +17,26 @@ export function highlightSegments(
   maxChars?: number,
 ): HighlightSegment[] | undefined {
   if (!text || terms.size === 0 || cannotMatch(text, terms)) return undefined;
-  const spans = tokenSpans(text);
-  const matched = spans.filter((s) => terms.has(s.key));
-  if (matched.length === 0) return undefined;
+  // Words as parallel arrays (keys, starts, ends): a card's text is scanned once, without an object per word, and
+  // only words that could have a term's length are keyed.
+  const { keys, starts, ends } = tokenArrays(text, new Set([...terms].map((term) => term.length)));
+  let first = 0;
+  while (first < keys.length && !terms.has(keys[first])) first++;
+  if (first === keys.length) return undefined;
 
   let from = 0;
   let to = text.length;
   if (maxChars !== undefined && text.length > maxChars) {
-    const first = matched[0];
-    from = Math.max(0, first.start - Math.floor(maxChars / 3));
+    from = Math.max(0, starts[first] - Math.floor(maxChars / 3));
     to = Math.min(text.length, from + maxChars);
     from = Math.max(0, to - maxChars);
     // Move the cut points onto word boundaries so no word is split.
-    const startWord = spans.find((s) => s.end > from);
-    if (startWord && startWord.start < from) from = startWord.end;
-    const endWord = [...spans].reverse().find((s) => s.start < to);
-    if (endWord && endWord.end > to) to = endWord.start;
+    let w = 0;
+    while (w < keys.length && ends[w] <= from) w++; // the first word ending after the cut
+    if (w < keys.length && starts[w] < from) from = ends[w];
+    w = keys.length - 1;
+    while (w >= 0 && starts[w] >= to) w--; // the last word starting before the cut
+    if (w >= 0 && ends[w] > to) to = starts[w];
     // Drop whitespace at a cut so the snippet reads cleanly next to the ellipsis.
     while (from > 0 && from < to && /\s/.test(text[from])) from++;
     while (to < text.length && to > from && /\s/.test(text[to - 1])) to--;
@@ -41,11 +45,11 @@ export function highlightSegments(
   const segments: HighlightSegment[] = [];
   if (from > 0) push(segments, ELLIPSIS, false);
   let cursor = from;
-  for (const span of matched) {
-    if (span.start < from || span.end > to) continue;
-    push(segments, text.slice(cursor, span.start), false);
-    push(segments, text.slice(span.start, span.end), true);
-    cursor = span.end;
+  for (let w = first; w < keys.length && starts[w] < to; w++) {
+    if (starts[w] < from || ends[w] > to || !terms.has(keys[w])) continue;
+    push(segments, text.slice(cursor, starts[w]), false);
+    push(segments, text.slice(starts[w], ends[w]), true);
+    cursor = ends[w];
   }
   push(segments, text.slice(cursor, to), false);
   if (to < text.length) push(segments, ELLIPSIS, false);

@@ -92,12 +92,14 @@ export function formulaAlias(key: string): string | undefined {
 
 /** Keys that identify a material for search and for the material facet: formula key, its alias, the name's key. */
 export function materialKeys(material: string, formula: string): readonly string[] {
-  const memo = `${material}\u0000${formula}`;
+  // A one-word material name (YBCO, Bi₂Se₃) is a formula or shorthand too; a longer name is searched by its words,
+  // so it plays no part here (and the memo is keyed by the formula alone).
+  const name = /\s/.test(material.trim()) ? '' : material;
+  const memo = name ? `${name}\u0000${formula}` : formula;
   const known = MATERIAL_KEYS.get(memo);
   if (known) return known;
   const keys = new Set<string>();
-  // A one-word material name (YBCO, Bi₂Se₃) is a formula or shorthand too; a longer name is searched by its words.
-  for (const text of [formula, /\s/.test(material.trim()) ? '' : material]) {
+  for (const text of [formula, name]) {
     const key = formulaKey(text);
     if (!key) continue;
     keys.add(key);

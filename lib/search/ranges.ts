@@ -64,35 +64,65 @@ export class RangeColumns {
     this.hi[kind][slot] = ok ? Math.max(r[0], r[1]) : NaN;
   }
 
-  /** A predicate over slots for the query's range filters, or null when the query has none. */
-  filter(params: RangeFilterParams): ((slot: number) => boolean) | null {
+  /** Whether the query filters on any range. */
+  filters(params: RangeFilterParams): boolean {
+    return [params.tMin, params.tMax, params.bMax, params.fMin, params.fMax].some((v) => v !== undefined);
+  }
+
+  /**
+   * Keeps, in order at the front of `slots[0..length)`, the slots passing every range filter of the query; returns
+   * how many. One tight loop per filter, each over what the previous one kept. Comparisons with NaN are false, so
+   * versions without the range in question drop out without a separate check.
+   */
+  narrow(params: RangeFilterParams, slots: Int32Array, length: number): number {
     const { tMin, tMax, bMax, fMin, fMax } = params;
     const overlaps = params.rangeMode === 'overlaps';
-    const tests: ((slot: number) => boolean)[] = [];
-    const tLo = this.lo.temperatureK, tHi = this.hi.temperatureK;
+    const { lo, hi } = this;
     if (tMin !== undefined || tMax !== undefined) {
-      if (overlaps) {
-        const a = tMin ?? -Infinity, b = tMax ?? Infinity;
-        tests.push((s) => tHi[s] >= a && tLo[s] <= b);
-      } else {
-        const a = tMin ?? (tMax as number), b = tMax ?? (tMin as number);
-        tests.push((s) => tLo[s] <= a && tHi[s] >= b);
-      }
+      if (overlaps) length = keepReaching(slots, length, lo.temperatureK, hi.temperatureK, tMax ?? Infinity, tMin ?? -Infinity);
+      else length = keepReaching(slots, length, lo.temperatureK, hi.temperatureK, tMin ?? (tMax as number), tMax ?? (tMin as number));
     }
-    const bLo = this.lo.fieldT, bHi = this.hi.fieldT;
     if (bMax !== undefined) {
-      tests.push(overlaps ? (s) => bLo[s] <= bMax && bHi[s] >= -bMax : (s) => Math.max(-bLo[s], bHi[s]) >= bMax);
+      if (overlaps) length = keepReaching(slots, length, lo.fieldT, hi.fieldT, bMax, -bMax);
+      else length = keepBeyond(slots, length, lo.fieldT, hi.fieldT, bMax);
     }
-    const fLo = this.lo.frequencyHz, fHi = this.hi.frequencyHz;
     if (fMin !== undefined || fMax !== undefined) {
       const a = fMin ?? -Infinity, b = fMax ?? Infinity;
-      tests.push(overlaps ? (s) => fHi[s] >= a && fLo[s] <= b : (s) => fLo[s] >= a && fHi[s] <= b);
+      if (overlaps) length = keepReaching(slots, length, lo.frequencyHz, hi.frequencyHz, b, a);
+      else length = keepWithin(slots, length, lo.frequencyHz, hi.frequencyHz, a, b);
     }
-    // Comparisons with NaN are false, so versions without the range drop out without a separate check.
-    if (tests.length === 0) return null;
-    if (tests.length === 1) return tests[0];
-    return (s) => tests.every((test) => test(s));
+    return length;
   }
+}
+
+// covers [a, b] is lo ≤ a and hi ≥ b; overlaps [a, b] is lo ≤ b and hi ≥ a: both keep lo ≤ loAtMost and hi ≥ hiAtLeast.
+function keepReaching(slots: Int32Array, length: number, lo: Float64Array, hi: Float64Array, loAtMost: number, hiAtLeast: number): number {
+  let kept = 0;
+  for (let i = 0; i < length; i++) {
+    const s = slots[i];
+    if (lo[s] <= loAtMost && hi[s] >= hiAtLeast) slots[kept++] = s;
+  }
+  return kept;
+}
+
+// The curve reaches |B| ≥ x: max(−lo, hi) ≥ x (the largest |B| of [lo, hi] is at one of its ends).
+function keepBeyond(slots: Int32Array, length: number, lo: Float64Array, hi: Float64Array, x: number): number {
+  let kept = 0;
+  for (let i = 0; i < length; i++) {
+    const s = slots[i];
+    if (Math.max(-lo[s], hi[s]) >= x) slots[kept++] = s;
+  }
+  return kept;
+}
+
+// Every value in the band: a ≤ lo and hi ≤ b.
+function keepWithin(slots: Int32Array, length: number, lo: Float64Array, hi: Float64Array, a: number, b: number): number {
+  let kept = 0;
+  for (let i = 0; i < length; i++) {
+    const s = slots[i];
+    if (lo[s] >= a && hi[s] <= b) slots[kept++] = s;
+  }
+  return kept;
 }
 
 function columns(capacity: number): Record<RangeKind, Float64Array> {

@@ -11,7 +11,7 @@ import { RangeColumns } from './ranges';
 import { ResultPages } from './result-pages';
 import { SparklineStore } from './sparkline-store';
 import { SlotTable, type StoredDoc } from './slot-table';
-import { TextMatcher, textFields } from './text-match';
+import { TextMatcher } from './text-match';
 import { type SearchDoc, type SearchHit, type SearchQuery, type SearchResult } from './types';
 
 export class SearchIndex {
@@ -27,6 +27,7 @@ export class SearchIndex {
   private buffer = new Int32Array(0);
   private changes = 0; // bumped by every add and remove; keys the cached counts of the plain listing
   private readonly unfiltered = new Map<boolean, { changes: number; passed: number; counts: Int32Array[] }>();
+  private readonly live = new Map<boolean, { changes: number; slots: Int32Array }>(); // every (latest) slot, in order
 
   /** `capacity`: the number of versions about to be added, if known (a rebuild counts its rows), to size columns once. */
   constructor(options: { capacity?: number } = {}) {
@@ -60,13 +61,13 @@ export class SearchIndex {
       this.unindexColumns(existing);
       if (!sameText) this.text.remove(existing);
       this.indexColumns(existing, doc, keysOfMaterial);
-      if (!sameText) this.text.add(textFields(existing, doc, keysOfMaterial));
+      if (!sameText) this.text.add(existing, doc, keysOfMaterial);
       return;
     }
     const slot = this.table.allocate();
     if (this.table.capacity > this.buffer.length) this.growTo(this.table.capacity);
     this.indexColumns(slot, doc, keysOfMaterial);
-    this.text.add(textFields(slot, doc, keysOfMaterial));
+    this.text.add(slot, doc, keysOfMaterial);
   }
 
   /** Same as add: the outbox says "this version changed", whatever changed. */
@@ -93,32 +94,23 @@ export class SearchIndex {
     const sort = terms.length === 0 ? 'date' : (query.sort ?? 'relevance');
 
     const latestOnly = !query.allVersions;
-    const inRange = this.ranges.filter(query);
+    const ranged = this.ranges.filters(query);
     const selection = facetSelection(query);
     const offset = (page - 1) * pageSize;
     let pageSlots: number[] = [];
     let passed: number;
     let counts: Int32Array[];
     let score: Float64Array | undefined;
-    if (!terms.length && !inRange && !selectsAnything(selection)) {
+    if (!terms.length && !ranged && !selectsAnything(selection)) {
       // The plain listing (no text, no filter): counts cached until the next change, page read off the date order.
       ({ passed, counts } = this.unfilteredCounts(latestOnly));
       if (offset < passed) pageSlots = this.pages.newestOfAll(latestOnly, offset, pageSize);
     } else {
-      // 1. Words (or every version), 2. latest-only and ranges, 3. facets with counts.
-      const found = terms.length ? this.text.match(terms, (term) => this.facetWords.slotsFor(term, this.table.capacity, this.changes)) : this.table.liveSlots(this.buffer, latestOnly);
-      const { slots, length } = found;
+      // Words (or every version), then latest-only and ranges, then facets with their counts.
+      const found = this.candidates(terms, latestOnly, ranged ? query : null);
+      const slots = found.slots;
       score = found.score;
-      let kept = length;
-      if (inRange || (terms.length && latestOnly)) {
-        const latest = this.table.latest;
-        kept = 0;
-        for (let i = 0; i < length; i++) {
-          const s = slots[i];
-          if ((!latestOnly || latest[s] === 1) && (!inRange || inRange(s))) slots[kept++] = s;
-        }
-      }
-      ({ passed, counts } = this.facets.filterAndCount(slots, kept, selection));
+      ({ passed, counts } = this.facets.filterAndCount(slots, found.length, selection));
       if (offset < passed) {
         pageSlots = sort === 'relevance' && score
           ? this.pages.byScore(slots, passed, offset, pageSize, score)
@@ -128,6 +120,16 @@ export class SearchIndex {
     const termSet = new Set(terms);
     const hits: SearchHit[] = pageSlots.map((s) => this.hit(s, termSet, terms.length && score ? score[s] : 0));
     return { total: passed, page, pageSize, sort, hits, facets: this.facets.buckets(counts, selection), notes };
+  }
+
+  /** Slots matching every term (or all live ones), narrowed to latest versions and the range filters. */
+  private candidates(terms: string[], latestOnly: boolean, ranges: SearchQuery | null) {
+    const found = terms.length
+      ? this.text.match(terms, (term) => this.facetWords.slotsFor(term, this.table.capacity, this.changes), latestOnly ? this.table.latest : undefined)
+      : this.everySlot(latestOnly);
+    let { length } = found;
+    if (ranges) length = this.ranges.narrow(ranges, found.slots, length);
+    return { slots: found.slots, length, score: found.score };
   }
 
   private hit(slot: number, terms: ReadonlySet<string>, score: number): SearchHit {
@@ -140,10 +142,21 @@ export class SearchIndex {
     return { doc, score: Math.round(score * 1000) / 1000, highlights };
   }
 
+  /** Every live (or latest) slot, copied to the front of the shared buffer from a list kept until the next change. */
+  private everySlot(latestOnly: boolean): { slots: Int32Array; length: number; score?: Float64Array } {
+    let cached = this.live.get(latestOnly);
+    if (!cached || cached.changes !== this.changes) {
+      const { slots, length } = this.table.liveSlots(this.buffer, latestOnly);
+      this.live.set(latestOnly, (cached = { changes: this.changes, slots: slots.slice(0, length) }));
+    }
+    this.buffer.set(cached.slots);
+    return { slots: this.buffer, length: cached.slots.length };
+  }
+
   private unfilteredCounts(latestOnly: boolean): { passed: number; counts: Int32Array[] } {
     const cached = this.unfiltered.get(latestOnly);
     if (cached && cached.changes === this.changes) return cached;
-    const { slots, length } = this.table.liveSlots(this.buffer, latestOnly);
+    const { slots, length } = this.everySlot(latestOnly);
     const fresh = { changes: this.changes, ...this.facets.filterAndCount(slots, length, {}) };
     this.unfiltered.set(latestOnly, fresh);
     return fresh;

@@ -1,9 +1,17 @@
 // Slot bookkeeping for the search index: version id ↔ slot number, the stored card fields, and the per-slot columns
 // every query reads (live, latest, publication time). Slots of removed versions are reused.
+import { TextArena } from './text-arena';
 import type { NumericRange, SearchDoc } from './types';
 
-/** What the index keeps of a SearchDoc besides its columns (ranges, sparkline, span, isLatest, publication time). */
-export type StoredDoc = Omit<SearchDoc, 'ranges' | 'sparkline' | 'temperatureSpanK' | 'isLatest' | 'publishedAt'>;
+/** What the index keeps of a SearchDoc as an object; the rest lives in columns (ranges, sparkline, span, flags, date)
+ * and in the text arena (title, description, DOI, dataset id). */
+export type StoredDoc = Omit<
+  SearchDoc,
+  'ranges' | 'sparkline' | 'temperatureSpanK' | 'isLatest' | 'publishedAt' | 'title' | 'description' | 'doi' | 'datasetId'
+>;
+
+// Fields of the text arena, in order.
+const TITLE = 0, DESCRIPTION = 1, DOI = 2, DATASET = 3;
 
 const INITIAL_CAPACITY = 1024;
 // Columns grow by a quarter: little idle memory; a rebuild that knows its row count reserves it up front.
@@ -24,6 +32,7 @@ export class SlotTable {
   private readonly strings = new Map<string, string>();
   private readonly groups = new Map<string, SearchDoc['group']>();
   private readonly lists = new Map<string, string[]>();
+  private readonly text = new TextArena(4);
 
   /** Makes room for `count` slots at once (a rebuild knows how many versions it will add). */
   reserve(count: number): void {
@@ -54,6 +63,7 @@ export class SlotTable {
     const doc = this.docs[slot];
     if (doc) this.slots.delete(doc.versionId);
     this.docs[slot] = undefined;
+    this.text.clear(slot);
     this.live[slot] = 0;
     this.latest[slot] = 0;
     this.free.push(slot);
@@ -61,15 +71,12 @@ export class SlotTable {
 
   store(slot: number, doc: SearchDoc): void {
     const s = (v: string) => this.intern(v);
-    const groupKey = `${doc.group.slug}\u0000${doc.group.name}`;
-    let group = this.groups.get(groupKey);
-    if (!group) this.groups.set(groupKey, (group = { slug: s(doc.group.slug), name: s(doc.group.name) }));
+    let group = this.groups.get(doc.group.slug);
+    if (!group || group.name !== doc.group.name) this.groups.set(doc.group.slug, (group = { slug: s(doc.group.slug), name: s(doc.group.name) }));
+    this.text.set(slot, [doc.title, doc.description, doc.doi, doc.datasetId]);
     this.docs[slot] = {
       versionId: doc.versionId,
-      datasetId: doc.datasetId,
       versionNumber: doc.versionNumber,
-      title: doc.title,
-      description: doc.description,
       keywords: doc.keywords.map(s),
       material: s(doc.material),
       formula: s(doc.formula),
@@ -80,7 +87,6 @@ export class SlotTable {
       excitation: doc.excitation,
       year: doc.year,
       embargoed: doc.embargoed,
-      doi: doc.doi,
     };
     this.slots.set(doc.versionId, slot);
     this.live[slot] = 1;
@@ -97,7 +103,7 @@ export class SlotTable {
     const old = this.docs[slot];
     if (!old) return false;
     const list = (a: string[], b: string[]) => a.length === b.length && a.every((v, i) => v === b[i]);
-    return old.title === doc.title && old.description === doc.description && old.material === doc.material &&
+    return this.title(slot) === doc.title && this.description(slot) === doc.description && old.material === doc.material &&
       old.formula === doc.formula && old.excitation === doc.excitation && old.group.slug === doc.group.slug &&
       old.group.name === doc.group.name && list(old.keywords, doc.keywords) && list(old.creators, doc.creators) &&
       list(old.quantities, doc.quantities) && list(old.methods, doc.methods);
@@ -123,15 +129,25 @@ export class SlotTable {
   toSearchDoc(slot: number, ranges: SearchDoc['ranges'], sparkline: [number, number][] | undefined): SearchDoc {
     const d = this.docs[slot] as StoredDoc;
     const doc: SearchDoc = {
-      versionId: d.versionId, datasetId: d.datasetId, versionNumber: d.versionNumber, isLatest: this.latest[slot] === 1,
-      title: d.title, description: d.description, keywords: d.keywords.slice(), material: d.material, formula: d.formula,
+      versionId: d.versionId, datasetId: this.text.get(slot, DATASET), versionNumber: d.versionNumber,
+      isLatest: this.latest[slot] === 1, title: this.title(slot), description: this.description(slot),
+      keywords: d.keywords.slice(), material: d.material, formula: d.formula,
       creators: d.creators.slice(), group: { slug: d.group.slug, name: d.group.name }, quantities: d.quantities.slice(),
       methods: d.methods.slice(), excitation: d.excitation,
-      year: d.year, publishedAt: new Date(this.dateMs[slot]).toISOString(), embargoed: d.embargoed, doi: d.doi, ranges,
+      year: d.year, publishedAt: new Date(this.dateMs[slot]).toISOString(), embargoed: d.embargoed,
+      doi: this.text.getOrNull(slot, DOI), ranges,
     };
     if (sparkline) doc.sparkline = sparkline;
     if (!Number.isNaN(this.span[2 * slot])) doc.temperatureSpanK = [this.span[2 * slot], this.span[2 * slot + 1]] as NumericRange;
     return doc;
+  }
+
+  title(slot: number): string {
+    return this.text.get(slot, TITLE);
+  }
+
+  description(slot: number): string {
+    return this.text.get(slot, DESCRIPTION);
   }
 
   // Quantity and method lists come from a small vocabulary and repeat as a whole; equal lists share one array.
@@ -158,5 +174,6 @@ export class SlotTable {
     this.dateMs = copy(this.dateMs, new Float64Array(capacity));
     this.span = copy(this.span, new Float64Array(capacity * 2).fill(NaN));
     this.markStamp = copy(this.markStamp, new Uint32Array(capacity));
+    this.text.grow(capacity);
   }
 }

@@ -1,11 +1,11 @@
-// The full-text part: a FlexSearch Document over the searchable fields, keyed by slot number, and the AND-of-terms
-// matching with field-weighted scores. FlexSearch only answers "which slots contain this key in this field".
-import { Document } from 'flexsearch';
+// The full-text part: one FlexSearch Index per searchable field, keyed by slot number, and the AND-of-terms matching
+// with field-weighted scores. FlexSearch only answers "which slots contain this key in this field".
+import { Index } from 'flexsearch';
 import { elementKeys } from './normalise-formula';
-import { addNewKeys, spaceKeys } from './tokenise';
+import { addKeys, spaceKeys } from './tokenise';
 import type { SearchDoc } from './types';
 
-// Three FlexSearch fields keep the build fast (each field costs a pass per version): the title; a "head" of the short
+// Three fields keep the build fast (each field costs a pass per version): the title; a "head" of the short
 // descriptive fields in falling order of importance (formula keys, elements, material name, keywords, creators), so
 // FlexSearch's position score ranks a formula above an element it contains; and the description.
 // Weight: relative value of a match in the field.
@@ -18,129 +18,237 @@ const FIELDS = [
 const RESOLUTION = 9;
 const FACET_WORD_GAIN = 2 * (1 - (0.5 * 4) / RESOLUTION);
 
-type TextFields = { id: number; title: string; head: string; body: string };
+type TextField = (typeof FIELDS)[number]['field'];
 
-/**
- * The text FlexSearch indexes for one version; every field is pre-keyed (space-separated keys from tokenise.ts).
- * A key is indexed once, in the first field that has it (title, then head, then body): the version is found all the
- * same and scores that field's weight, with fewer postings to build and keep.
- */
-export function textFields(slot: number, doc: SearchDoc, keysOfMaterial: readonly string[]): TextFields {
-  const seen = new Set<string>();
-  const title: string[] = [];
-  addNewKeys(doc.title, seen, title);
-  // Quantities, methods, excitation and group are matched through the facet dictionaries instead (facet-words.ts).
-  const head: string[] = [];
-  for (const key of keysOfMaterial) addKey(key, seen, head);
-  for (const element of elementKeys(doc.formula)) addKey(element, seen, head);
-  addNewKeys(doc.material, seen, head);
-  for (const keyword of doc.keywords) addNewKeys(keyword, seen, head);
-  for (const creator of doc.creators) addNewKeys(creator, seen, head);
-  const body: string[] = [];
-  addNewKeys(doc.description, seen, body);
-  return { id: slot, title: title.join(' '), head: head.join(' '), body: body.join(' ') };
+/** The keys of one version per field, in order (each key in one field only): what FlexSearch indexes. */
+export type TextFields = { title: string[]; head: string[]; body: string[] };
+
+// One copy of every key ever indexed, with a number. FlexSearch files each posting under its key in a plain object and
+// a Map: handing it the same string object every time (already hashed, already known to the engine) makes adding ~40 %
+// cheaper than fresh strings from the tokeniser, and the numbers let a version's keys be de-duplicated with a stamp
+// array instead of a Set per version. A speed aid only: forgetting it changes no result (see remember()).
+const VOCABULARY_LIMIT = 4_000_000;
+
+export class FieldKeys {
+  private readonly ids = new Map<string, number>();
+  private readonly keys: string[] = [];
+  private stamp = new Uint32Array(1024);
+  private generation = 0;
+
+  /**
+   * The keys FlexSearch indexes for one version (keys from tokenise.ts). A key is indexed once, in the first field
+   * that has it (title, then head, then body): the version is found all the same and scores that field's weight, with
+   * fewer postings to build and keep (a fifth fewer in the benchmark corpus).
+   */
+  fields(doc: SearchDoc, keysOfMaterial: readonly string[]): TextFields {
+    if (++this.generation === 0xffffffff || this.ids.size > VOCABULARY_LIMIT) this.forget();
+    const title: string[] = [];
+    this.addText(doc.title, title);
+    // Quantities, methods, excitation and group are matched through the facet dictionaries instead (facet-words.ts).
+    const head: string[] = [];
+    for (const key of keysOfMaterial) this.addKey(key, head);
+    for (const key of elementKeys(doc.formula)) this.addKey(key, head);
+    this.addText(doc.material, head);
+    for (const keyword of doc.keywords) this.addText(keyword, head);
+    for (const creator of doc.creators) this.addText(creator, head);
+    const body: string[] = [];
+    this.addText(doc.description, body);
+    return { title, head, body };
+  }
+
+  /** Number of distinct keys remembered. */
+  get size(): number {
+    return this.ids.size;
+  }
+
+  // Appends the keys of `text` to `out` in place, then replaces each by its kept copy, dropping the ones already seen.
+  private addText(text: string, out: string[]): void {
+    const start = out.length;
+    addKeys(text, out);
+    let kept = start;
+    for (let i = start; i < out.length; i++) {
+      const key = this.remember(out[i]);
+      if (key !== null) out[kept++] = key;
+    }
+    out.length = kept;
+  }
+
+  private addKey(key: string, out: string[]): void {
+    const kept = this.remember(key);
+    if (kept !== null) out.push(kept);
+  }
+
+  // The kept copy of `key`, or null when this version already has it.
+  private remember(key: string): string | null {
+    let id = this.ids.get(key);
+    if (id === undefined) {
+      id = this.keys.length;
+      this.ids.set(key, id);
+      this.keys.push(key);
+      if (id >= this.stamp.length) {
+        const stamp = new Uint32Array(this.stamp.length * 2);
+        stamp.set(this.stamp);
+        this.stamp = stamp;
+      }
+    }
+    if (this.stamp[id] === this.generation) return null;
+    this.stamp[id] = this.generation;
+    return this.keys[id];
+  }
+
+  private forget(): void {
+    this.ids.clear();
+    this.keys.length = 0;
+    this.stamp = new Uint32Array(1024);
+    this.generation = 1;
+  }
 }
 
-function addKey(key: string, seen: Set<string>, out: string[]): void {
-  if (seen.has(key)) return;
-  seen.add(key);
-  out.push(key);
+/**
+ * A field's FlexSearch index. Content is handed over already keyed: add() passes the key array itself (no join and
+ * split, and the keys keep their computed hashes); a query string is split at spaces like any keyed text.
+ */
+export function fieldIndex(): Index {
+  return new Index({ tokenize: 'strict', resolution: RESOLUTION, encode: (content: string | string[]) => (typeof content === 'string' ? spaceKeys(content) : content) });
+}
+
+/** FlexSearch's add() is typed for text; our field encoder takes the key array as it is (fieldIndex). */
+export function addKeyed(index: Index, slot: number, keys: string[]): void {
+  if (keys.length) index.add(slot, keys as unknown as string);
 }
 
 export class TextMatcher {
   // Strict (whole-word) tokens and no fast-update register: forward tokens cost 3× the build time and 2.5× the memory,
   // and the register +50 % memory; a removal scans the index instead (≈100 ms at 100 k versions, outbox events are rare).
-  private readonly index = new Document<TextFields>({
-    document: { id: 'id', index: FIELDS.map(({ field }) => ({ field, tokenize: 'strict' as const, resolution: RESOLUTION, encode: spaceKeys })) },
-  });
+  private readonly indexes: Record<TextField, Index> = { title: fieldIndex(), head: fieldIndex(), body: fieldIndex() };
+  private readonly keys = new FieldKeys();
   private score = new Float64Array(0);
-  private stamp = new Uint32Array(0);
-  private seen = new Uint8Array(0);
+  // Per slot, generation << 4 | how many terms of the current query it has matched (at most MAX_QUERY_TERMS = 12;
+  // generations wrap below 2^27, so a mark stays a positive int32): one read tells whether a slot is still in the running.
+  private mark = new Uint32Array(0);
   private found = new Int32Array(0);
   private gen = 0;
   private length = 0;
 
   grow(capacity: number): void {
-    const score = new Float64Array(capacity);
-    const stamp = new Uint32Array(capacity);
-    const seen = new Uint8Array(capacity);
-    stamp.set(this.stamp);
-    this.score = score;
-    this.stamp = stamp;
-    this.seen = seen;
+    this.score = new Float64Array(capacity);
+    this.mark = new Uint32Array(capacity);
+    this.gen = 0;
     this.found = new Int32Array(capacity);
   }
 
-  add(fields: TextFields): void {
-    this.index.add(fields);
+  /** Indexes the version's text (keysOfMaterial: formula keys and aliases, normalise-formula.ts). */
+  add(slot: number, doc: SearchDoc, keysOfMaterial: readonly string[]): void {
+    const fields = this.keys.fields(doc, keysOfMaterial);
+    for (const { field } of FIELDS) addKeyed(this.indexes[field], slot, fields[field]);
   }
 
   remove(slot: number): void {
-    this.index.remove(slot);
+    for (const { field } of FIELDS) this.indexes[field].remove(slot);
   }
 
   /**
    * Slots containing every term (each term in any field), written to the front of the returned buffer, with scores:
    * per term and field, weight × (1 − ½·bucket/9), where bucket is FlexSearch's position score (0 = the field's first
-   * words). Equal buckets give equal scores, so ties fall to the date order. Buffer and scores are reused by the next call.
+   * words). Equal buckets give equal scores, so ties fall to the date order. `only`: a 0/1 column the slots must have
+   * set (the latest versions). Buffer and scores are reused by the next call.
    */
-  match(terms: readonly string[], more?: (term: string) => Int32Array[]): { slots: Int32Array; length: number; score: Float64Array } {
-    this.gen++;
+  match(
+    terms: readonly string[],
+    more?: (term: string) => Int32Array[],
+    only?: Uint8Array,
+  ): { slots: Int32Array; length: number; score: Float64Array } {
+    if (++this.gen === 1 << 27) {
+      this.mark.fill(0);
+      this.gen = 1;
+    }
     this.length = 0;
     for (let t = 0; t < terms.length; t++) {
       for (const { field, weight } of FIELDS) {
         // resolve: false hands back FlexSearch's own bucket arrays (no copy, no limit); they are only read here.
-        const buckets = this.index.search(terms[t], { index: field, resolve: false }).result as (number[] | undefined)[];
+        const buckets = this.indexes[field].search(terms[t], { resolve: false }).result as (number[] | undefined)[];
         for (let b = 0; b < buckets.length; b++) {
           const ids = buckets[b];
-          if (ids) this.visitArray(ids, t, weight * (1 - (0.5 * b) / RESOLUTION));
+          if (!ids) continue;
+          const gain = weight * (1 - (0.5 * b) / RESOLUTION);
+          if (t === 0) this.firstArray(ids, gain, only);
+          else this.nextArray(ids, t, gain);
         }
       }
       // Facet words (quantities, methods, group) count like a word in the middle of the head field.
-      for (const ids of more?.(terms[t]) ?? []) this.visitTyped(ids, t, FACET_WORD_GAIN);
+      for (const ids of more?.(terms[t]) ?? []) {
+        if (t === 0) this.firstTyped(ids, FACET_WORD_GAIN, only);
+        else this.nextTyped(ids, t, FACET_WORD_GAIN);
+      }
     }
-    const { seen, found } = this;
+    const { mark, found } = this;
+    if (terms.length === 1) return { slots: found, length: this.length, score: this.score }; // every slot found has it
+    const all = (this.gen << 4) | terms.length;
     let kept = 0;
-    for (let i = 0; i < this.length; i++) if (seen[found[i]] === terms.length) found[kept++] = found[i];
+    for (let i = 0; i < this.length; i++) if (mark[found[i]] === all) found[kept++] = found[i];
     return { slots: found, length: kept, score: this.score };
   }
 
-  // Two copies of one loop, so each stays monomorphic (plain arrays from FlexSearch, Int32Arrays from facet words).
-  private visitArray(ids: number[], t: number, gain: number): void {
-    const { stamp, seen, score, found, gen } = this;
+  // The first term's slots join (those `only` allows; met again in another field or bucket, they gain again); a later
+  // term's slots count only if they have every earlier term. Four copies of two loops, so each stays monomorphic (plain arrays from
+  // FlexSearch, Int32Arrays from facet words).
+  private firstArray(ids: number[], gain: number, only: Uint8Array | undefined): void {
+    const { mark, score, found } = this;
+    const one = (this.gen << 4) | 1;
     let length = this.length;
     for (let r = 0; r < ids.length; r++) {
       const s = ids[r];
-      if (stamp[s] !== gen) {
-        if (t > 0) continue; // missed an earlier term
-        stamp[s] = gen;
-        seen[s] = 1;
+      if (mark[s] === one) score[s] += gain;
+      else if (!only || only[s] === 1) {
+        mark[s] = one;
         score[s] = gain;
         found[length++] = s;
-      } else if (seen[s] >= t) {
-        seen[s] = t + 1;
-        score[s] += gain;
       }
     }
     this.length = length;
   }
 
-  private visitTyped(ids: Int32Array, t: number, gain: number): void {
-    const { stamp, seen, score, found, gen } = this;
+  private firstTyped(ids: Int32Array, gain: number, only: Uint8Array | undefined): void {
+    const { mark, score, found } = this;
+    const one = (this.gen << 4) | 1;
     let length = this.length;
     for (let r = 0; r < ids.length; r++) {
       const s = ids[r];
-      if (stamp[s] !== gen) {
-        if (t > 0) continue;
-        stamp[s] = gen;
-        seen[s] = 1;
+      if (mark[s] === one) score[s] += gain;
+      else if (!only || only[s] === 1) {
+        mark[s] = one;
         score[s] = gain;
         found[length++] = s;
-      } else if (seen[s] >= t) {
-        seen[s] = t + 1;
-        score[s] += gain;
       }
     }
     this.length = length;
+  }
+
+  private nextArray(ids: number[], t: number, gain: number): void {
+    const { mark, score } = this;
+    const before = (this.gen << 4) | t; // has terms 0 … t − 1
+    const after = before + 1; // has term t too
+    for (let r = 0; r < ids.length; r++) {
+      const s = ids[r];
+      const m = mark[s];
+      if (m === before) {
+        mark[s] = after;
+        score[s] += gain;
+      } else if (m === after) score[s] += gain;
+    }
+  }
+
+  private nextTyped(ids: Int32Array, t: number, gain: number): void {
+    const { mark, score } = this;
+    const before = (this.gen << 4) | t;
+    const after = before + 1;
+    for (let r = 0; r < ids.length; r++) {
+      const s = ids[r];
+      const m = mark[s];
+      if (m === before) {
+        mark[s] = after;
+        score[s] += gain;
+      } else if (m === after) score[s] += gain;
+    }
   }
 }

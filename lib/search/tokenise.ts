@@ -47,76 +47,111 @@ export function tokenSpans(text: string): TokenSpan[] {
   return keys.map((key, i) => ({ start: starts[i], end: ends[i], key }));
 }
 
+/**
+ * tokenSpans as three parallel arrays (no object per word). With `keyLengths`, an ASCII word whose key cannot have one
+ * of those lengths gets the key '' (it is not keyed at all): a caller looking for a few known keys skips the rest.
+ */
+export function tokenArrays(text: string, keyLengths?: ReadonlySet<number>): { keys: string[]; starts: number[]; ends: number[] } {
+  const keys: string[] = [];
+  const starts: number[] = [];
+  const ends: number[] = [];
+  scan(text, keys, starts, ends, keyLengths ?? null);
+  return { keys, starts, ends };
+}
+
+// Whether an ASCII word of `chars` characters (dots removed) can have a key of one of `lengths`: its key is the word
+// cut to MAX_TERM_CHARS, less a plural -s (finishKey).
+function mayHaveKeyLength(chars: number, lengths: ReadonlySet<number>): boolean {
+  const cut = Math.min(chars, MAX_TERM_CHARS);
+  return lengths.has(cut) || lengths.has(cut - 1);
+}
+
 /** Keys of the words of `text` in order, stopwords left out: what a text field indexes and what a text query looks up. */
 export function textKeys(text: string): string[] {
   const keys: string[] = [];
   scan(text, keys, null, null);
-  return keys.filter((key) => !STOPWORDS.has(key));
+  return keys.filter((key) => !isStopword(key));
 }
 
-/** Appends to `out` the keys of `text` that are not stopwords and not yet in `seen` (adding them to it). */
-export function addNewKeys(text: string, seen: Set<string>, out: string[]): void {
-  const keys: string[] = [];
-  scan(text, keys, null, null);
-  for (const key of keys) {
-    if (STOPWORDS.has(key) || seen.has(key)) continue;
-    seen.add(key);
-    out.push(key);
-  }
+/** Appends the keys of `text` that are not stopwords to `out` (textKeys without a new array). */
+export function addKeys(text: string, out: string[]): void {
+  const start = out.length;
+  scan(text, out, null, null);
+  let kept = start;
+  for (let i = start; i < out.length; i++) if (!isStopword(out[i])) out[kept++] = out[i];
+  out.length = kept;
 }
+
+// Keys longer than the longest stopword skip the set lookup.
+const STOPWORD_MAX = Math.max(...[...STOPWORDS].map((w) => w.length));
+const isStopword = (key: string) => key.length <= STOPWORD_MAX && STOPWORDS.has(key);
 
 // Word characters: letters, digits (₀–₉ included) and marks; tested by regex only for non-ASCII ones.
 const WORD_CHAR = /^[\p{L}\p{N}\p{M}]$/u;
 const DIGIT_CHAR = /^\p{N}$/u;
+const isAsciiWord = (c: number) => (c >= 97 && c <= 122) || (c >= 65 && c <= 90) || (c >= 48 && c <= 57);
+const isDigit = (c: number) => c >= 48 && c <= 57;
+const isHighSurrogate = (c: number) => c >= 0xd800 && c <= 0xdbff;
 
-/** Width in UTF-16 units of the word character at i (2 for one outside the BMP), or 0 if it is not one. */
-function wordCharAt(text: string, i: number): number {
-  const c = text.charCodeAt(i);
-  if (c < 128) return (c >= 97 && c <= 122) || (c >= 65 && c <= 90) || (c >= 48 && c <= 57) ? 1 : 0;
-  const width = c >= 0xd800 && c <= 0xdbff && i + 1 < text.length ? 2 : 1;
+/** Width in UTF-16 units (1, or 2 outside the BMP) of the non-ASCII word character at i, or 0 if it is not one. */
+function unicodeWordAt(text: string, i: number): number {
+  const width = isHighSurrogate(text.charCodeAt(i)) && i + 1 < text.length ? 2 : 1;
   return WORD_CHAR.test(text.slice(i, i + width)) ? width : 0;
 }
 
 function digitAt(text: string, i: number): boolean {
   const c = text.charCodeAt(i);
-  if (c < 128) return c >= 48 && c <= 57;
-  const width = c >= 0xd800 && c <= 0xdbff ? 2 : 1;
-  return DIGIT_CHAR.test(text.slice(i, i + width));
+  if (c < 128) return isDigit(c);
+  return DIGIT_CHAR.test(text.slice(i, i + (isHighSurrogate(c) ? 2 : 1)));
 }
 
 // The words of WORD in one pass over char codes (no regex over the whole text): a run of word characters, continued
-// across a dot between two digits. ASCII words are keyed inline; the rest go through termKey's Unicode folding.
-function scan(text: string, keys: string[], starts: number[] | null, ends: number[] | null): void {
+// across a dot between two digits. ASCII characters are classified inline; only others go through a regex test.
+function scan(text: string, keys: string[], starts: number[] | null, ends: number[] | null, lengths: ReadonlySet<number> | null = null): void {
   if (ASCII.test(text)) {
-    scanAscii(text.toLowerCase(), keys, starts, ends);
+    scanAscii(text.toLowerCase(), keys, starts, ends, lengths);
     return;
   }
   const n = text.length;
   let i = 0;
   while (i < n) {
-    const width = wordCharAt(text, i);
+    const c = text.charCodeAt(i);
+    const width = c < 128 ? (isAsciiWord(c) ? 1 : 0) : unicodeWordAt(text, i);
     if (width === 0) {
-      i += text.charCodeAt(i) >= 0xd800 && text.charCodeAt(i) <= 0xdbff ? 2 : 1;
+      i += isHighSurrogate(c) && i + 1 < n ? 2 : 1;
       continue;
     }
     const start = i;
     let ascii = true;
-    let dotted = false;
+    let dots = 0;
     let last = i;
     while (i < n) {
-      const w = wordCharAt(text, i);
-      if (w > 0) {
-        if (text.charCodeAt(i) >= 128) ascii = false;
-        last = i;
-        i += w;
-      } else if (text.charCodeAt(i) === 46 && i + 1 < n && digitAt(text, last) && digitAt(text, i + 1)) {
-        dotted = true;
-        i++;
-      } else break;
+      const d = text.charCodeAt(i);
+      if (d < 128) {
+        if (isAsciiWord(d)) {
+          last = i++;
+          continue;
+        }
+        if (d === 46 && i + 1 < n && digitAt(text, last) && digitAt(text, i + 1)) {
+          dots++;
+          i++;
+          continue;
+        }
+        break;
+      }
+      const w = unicodeWordAt(text, i);
+      if (w === 0) break;
+      ascii = false;
+      last = i;
+      i += w;
     }
-    const word = text.slice(start, i);
-    const key = ascii ? finishKey((dotted ? word.replace(/\./g, '') : word).toLowerCase()) : termKey(word);
-    if (!key) continue;
+    let key = '';
+    if (!ascii) key = termKey(text.slice(start, i));
+    else if (!lengths || mayHaveKeyLength(i - start - dots, lengths)) {
+      const word = text.slice(start, i);
+      key = finishKey((dots ? word.replace(/\./g, '') : word).toLowerCase());
+    }
+    if (!key && !ascii) continue;
     keys.push(key);
     starts?.push(start);
     ends?.push(i);
@@ -124,7 +159,7 @@ function scan(text: string, keys: string[], starts: number[] | null, ends: numbe
 }
 
 // The same for ASCII text, lower-cased once up front: [a-z0-9] runs joined across a dot between two digits.
-function scanAscii(text: string, keys: string[], starts: number[] | null, ends: number[] | null): void {
+function scanAscii(text: string, keys: string[], starts: number[] | null, ends: number[] | null, lengths: ReadonlySet<number> | null): void {
   const n = text.length;
   let i = 0;
   while (i < n) {
@@ -134,23 +169,24 @@ function scanAscii(text: string, keys: string[], starts: number[] | null, ends: 
       continue;
     }
     const start = i;
-    let dotted = false;
+    let dots = 0;
     while (i < n) {
       c = text.charCodeAt(i);
       if ((c >= 97 && c <= 122) || (c >= 48 && c <= 57)) i++;
       else if (c === 46 && i + 1 < n && isDigit(text.charCodeAt(i - 1)) && isDigit(text.charCodeAt(i + 1))) {
-        dotted = true;
+        dots++;
         i++;
       } else break;
     }
-    const word = text.slice(start, i);
-    keys.push(finishKey(dotted ? word.replace(/\./g, '') : word));
+    if (lengths && !mayHaveKeyLength(i - start - dots, lengths)) keys.push('');
+    else {
+      const word = text.slice(start, i);
+      keys.push(finishKey(dots ? word.replace(/\./g, '') : word));
+    }
     starts?.push(start);
     ends?.push(i);
   }
 }
-
-const isDigit = (c: number) => c >= 48 && c <= 57;
 
 /** Splits an already-keyed, space-separated field (formula keys, element symbols) without touching the keys. */
 export function spaceKeys(text: string): string[] {

@@ -42,6 +42,51 @@ describe('FacetColumns', () => {
     expect(facets.buckets(material, {}).material).toEqual([{ value: 'm', count: 2 }]);
   });
 
+  it('counts a many-valued facet right without a selection, after a query that had one', () => {
+    // 40 slots: method x{s} plus "shared", material m{s % 4}: 41 method values, too many to count by bit pattern.
+    const rows = Array.from({ length: 40 }, (_, s) => ({ method: [`x${s}`, 'shared'], material: `m${s % 4}` }));
+    const { facets, slots } = filled(rows);
+    facets.filterAndCount(slots.slice(), slots.length, { material: ['m1'], method: ['x0'] });
+    const { passed, counts } = facets.filterAndCount(slots.slice(), slots.length, {});
+    expect(passed).toBe(40);
+    const buckets = facets.buckets(counts, {});
+    expect(buckets.method[0]).toEqual({ value: 'shared', count: 40 });
+    expect(buckets.material).toEqual([0, 1, 2, 3].map((k) => ({ value: `m${k}`, count: 10 })));
+  });
+
+  it('counts packed small facets like one pass per facet, with and without selections', () => {
+    // Slot s (0 … 59): quantity q{s % 3} (plus qx on every fifth), method k{s % 2}, excitation e{s % 4} (none on 3),
+    // group g{s % 5}, year 20{s % 6}: every count below follows from the residues.
+    const facets = new FacetColumns(60);
+    for (let s = 0; s < 60; s++) {
+      facets.columns.quantity.setMany(s, s % 5 === 0 ? [`q${s % 3}`, 'qx'] : [`q${s % 3}`]);
+      facets.columns.method.setMany(s, [`k${s % 2}`]);
+      facets.columns.excitation.setOne(s, s % 4 === 3 ? '' : `e${s % 4}`);
+      facets.columns.group.setOne(s, `g${s % 5}`);
+      facets.columns.year.setOne(s, `20${s % 6}`);
+      facets.columns.material.setOne(s, 'm');
+    }
+    const all = Int32Array.from({ length: 60 }, (_, s) => s);
+    const countsOf = (selection: object) => {
+      const { passed, counts } = facets.filterAndCount(all.slice(), 60, selection);
+      const b = facets.buckets(counts, selection);
+      const map = (name: keyof typeof b) => Object.fromEntries(b[name].map((x) => [x.value, x.count]));
+      return { passed, quantity: map('quantity'), method: map('method'), excitation: map('excitation'), group: map('group'), year: map('year') };
+    };
+    expect(countsOf({})).toEqual({
+      passed: 60, quantity: { q0: 20, q1: 20, q2: 20, qx: 12 }, method: { k0: 30, k1: 30 }, excitation: { e0: 15, e1: 15, e2: 15 },
+      group: { g0: 12, g1: 12, g2: 12, g3: 12, g4: 12 }, year: { 200: 10, 201: 10, 202: 10, 203: 10, 204: 10, 205: 10 },
+    });
+    // group g0 (s ≡ 0 mod 5) and method k1 (odd s): passing slots are s ≡ 5 mod 10 (6 slots: 5, 15, …, 55).
+    // group counts: odd slots per group (6 each); method counts: slots of g0 (12), 6 even and 6 odd.
+    // Others over the 6 passing slots: quantity q0 (15, 45), q1 (25, 55), q2 (5, 35), and qx on all six; excitation
+    // e1 (5, 25, 45), none on 15, 35, 55; year 205 (5), 203 (15), 201 (25), 205 (35), 203 (45), 201 (55).
+    expect(countsOf({ group: ['g0'], method: ['k1'] })).toEqual({
+      passed: 6, quantity: { q0: 2, q1: 2, q2: 2, qx: 6 }, method: { k0: 6, k1: 6 }, excitation: { e1: 3 },
+      group: { g0: 6, g1: 6, g2: 6, g3: 6, g4: 6 }, year: { 201: 2, 203: 2, 205: 2 },
+    });
+  });
+
   it('uses bit sets while a multi-valued facet has at most 32 values, with the same answers', () => {
     const rows = Array.from({ length: 32 }, (_, s) => ({ method: [`y${s}`, s % 2 ? 'odd' : 'even'], material: 'm' }));
     const { facets, slots } = filled(rows.slice(0, 30));

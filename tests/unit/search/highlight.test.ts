@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { highlightSegments, SNIPPET_CHARS } from '@/lib/search/highlight';
+import { tokenSpans } from '@/lib/search/tokenise';
+import type { HighlightSegment } from '@/lib/search/types';
 
 // Expected segments are written out by hand from the input strings.
 describe('highlightSegments', () => {
@@ -39,5 +41,54 @@ describe('highlightSegments', () => {
       { text: 'Kondo', match: true },
       { text: ' upturn below 20 K.', match: false },
     ]);
+  });
+
+  it('gives what the plain span-by-span reading gives, on random text and terms', () => {
+    // Reference: the same rules written the simple way, over token objects (tokenSpans).
+    const reference = (text: string, terms: Set<string>, maxChars?: number): HighlightSegment[] | undefined => {
+      const spans = tokenSpans(text);
+      const matched = spans.filter((s) => terms.has(s.key));
+      if (!text || terms.size === 0 || matched.length === 0) return undefined;
+      let from = 0;
+      let to = text.length;
+      if (maxChars !== undefined && text.length > maxChars) {
+        from = Math.max(0, matched[0].start - Math.floor(maxChars / 3));
+        to = Math.min(text.length, from + maxChars);
+        from = Math.max(0, to - maxChars);
+        const startWord = spans.find((s) => s.end > from);
+        if (startWord && startWord.start < from) from = startWord.end;
+        const endWord = [...spans].reverse().find((s) => s.start < to);
+        if (endWord && endWord.end > to) to = endWord.start;
+        while (from > 0 && from < to && /\s/.test(text[from])) from++;
+        while (to < text.length && to > from && /\s/.test(text[to - 1])) to--;
+      }
+      const out: HighlightSegment[] = [];
+      const add = (part: string, match: boolean) => {
+        if (!part) return;
+        const last = out[out.length - 1];
+        if (last && last.match === match) last.text += part;
+        else out.push({ text: part, match });
+      };
+      if (from > 0) add('…', false);
+      let cursor = from;
+      for (const span of matched) {
+        if (span.start < from || span.end > to) continue;
+        add(text.slice(cursor, span.start), false);
+        add(text.slice(span.start, span.end), true);
+        cursor = span.end;
+      }
+      add(text.slice(cursor, to), false);
+      if (to < text.length) add('…', false);
+      return out;
+    };
+    let seed = 4242;
+    const next = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+    const words = ['Hall', 'hall', 'halls', 'films', 'film', 'Cu₂O', 'cu2o', '4.2', '42', 'naïve', 'naive', 'ρ(T)', '–', 'kondo', 'x'.repeat(40)];
+    for (let n = 0; n < 800; n++) {
+      const text = Array.from({ length: Math.floor(next() * 90) }, () => words[Math.floor(next() * words.length)]).join(next() < 0.5 ? ' ' : ', ');
+      const terms = new Set(Array.from({ length: Math.floor(next() * 3) }, () => ['hall', 'film', 'cu2o', '42', 'naive', 'kondo', 'x'.repeat(32)][Math.floor(next() * 7)]));
+      const max = next() < 0.5 ? SNIPPET_CHARS : undefined;
+      expect(highlightSegments(text, terms, max), JSON.stringify({ text, terms: [...terms], max })).toEqual(reference(text, terms, max));
+    }
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { formulaElements, formulaKey, materialKeys } from '@/lib/search/normalise-formula';
-import { STOPWORDS, termKey, textKeys, tokenSpans } from '@/lib/search/tokenise';
+import { MAX_TERM_CHARS, STOPWORDS, termKey, textKeys, tokenArrays, tokenSpans } from '@/lib/search/tokenise';
 
 // Formulas and element symbols: common knowledge (IUPAC symbols); the keys are this module's own definition.
 describe('formulaKey', () => {
@@ -69,6 +69,27 @@ describe('tokeniser keys', () => {
       const text = Array.from({ length: 1 + Math.floor(next() * 30) }, () => from[Math.floor(next() * from.length)]).join('');
       expect(tokenSpans(text), JSON.stringify(text)).toEqual(reference(text));
       expect(textKeys(text)).toEqual(reference(text).map((s) => s.key).filter((key) => !STOPWORDS.has(key)));
+    }
+  });
+
+  it('gives the same words as parallel arrays, keying only words that may have a wanted key length', () => {
+    let seed = 777;
+    const next = () => (seed = (seed * 1103515245 + 12345) % 2 ** 31) / 2 ** 31;
+    const alphabet = ['a', 'Z', 's', 'ss', '0', '9', '.', '.', ' ', ' ', '-', '₂', 'é', 'ρ', '–', 'x'.repeat(MAX_TERM_CHARS)];
+    for (let n = 0; n < 1600; n++) {
+      const from = n % 2 ? alphabet : alphabet.filter((a) => /^[\x00-\x7f]*$/.test(a));
+      const text = Array.from({ length: 1 + Math.floor(next() * 40) }, () => from[Math.floor(next() * from.length)]).join('');
+      const spans = tokenSpans(text);
+      const lengths = new Set([1 + Math.floor(next() * 6), MAX_TERM_CHARS - Math.floor(next() * 2)]);
+      const arrays = tokenArrays(text, lengths);
+      expect(arrays.starts).toEqual(spans.map((s) => s.start));
+      expect(arrays.ends).toEqual(spans.map((s) => s.end));
+      // A word keeps its key whenever that key has a wanted length; otherwise it may be left unkeyed ('').
+      spans.forEach((span, i) => {
+        if (lengths.has(span.key.length)) expect(arrays.keys[i], JSON.stringify(text)).toBe(span.key);
+        else expect([span.key, '']).toContain(arrays.keys[i]);
+      });
+      expect(tokenArrays(text).keys).toEqual(spans.map((s) => s.key));
     }
   });
 });

@@ -27,6 +27,11 @@ describe('add, update, remove', () => {
     expect(small.size).toBe(8);
     expect(small.search({}).hits.map((h) => h.doc.versionId)).toEqual(['c1', 'b1', 'a2', 'a1', 'b2v2', 'a3', 'c2']);
     expect(small.get('a1')?.publishedAt).toBe('2025-03-01T09:00:00.000Z');
+    small.add({ ...byId('a2'), doi: null, description: '' });
+    expect(small.get('a2')).toMatchObject({ doi: null, description: '', datasetId: 'ds-a2', title: byId('a2').title });
+    small.add({ ...byId('a3'), doi: '' });
+    expect(small.get('a3')?.doi).toBe('');
+    expect(small.get('a1')?.doi).toBe('10.99999/ohm.a1');
   });
 
   it('hands out copies: changing a returned doc does not change the index', () => {

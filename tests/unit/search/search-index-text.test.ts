@@ -130,3 +130,13 @@ describe('embargo', () => {
     expect(hit.doc.embargoed).toBe(true);
   });
 });
+
+describe('matching state', () => {
+  it('answers the same across the wrap of the per-query generation counter', () => {
+    const before = [ids({ q: 'Cu' }), ids({ q: 'YBa2Cu3O7 film' }), ids({ q: 'wire' })];
+    // Two queries short of the wrap (text-match.ts wraps below 2^27): the next three queries cross it.
+    (index as unknown as { text: { gen: number } }).text.gen = (1 << 27) - 2;
+    expect([ids({ q: 'Cu' }), ids({ q: 'YBa2Cu3O7 film' }), ids({ q: 'wire' })]).toEqual(before);
+    expect((index as unknown as { text: { gen: number } }).text.gen).toBe(2);
+  });
+});
