@@ -2,13 +2,15 @@
 // temp dir, then times a streamed SHA-256 of it and summariseFile on it, each in a fresh child process that reports its
 // own peak RSS (process.resourceUsage().maxRSS). Targets (issue 3): summarise/hash time ratio ≤ 3, RSS growth ≤ 150 MB.
 // "cold" is the first file a process reads (JIT compilation included); "warm" follows one 20 000-row file, as in a
-// long-running deposit worker. Both are reported; the targets are checked on both.
+// long-running deposit worker. Both are reported; the targets are checked on both. summariseFile reads the rows of a
+// large file on a worker thread too when the machine has an idle core; the last line says how the rows were shared.
 import { execFileSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { createReadStream, mkdtempSync, rmSync, statSync } from 'node:fs';
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import type { ParallelStats } from '../lib/transport/parse/parallel-rows';
 import { summariseFile } from '../lib/transport/summarise-file'; // loaded before any baseline: its code is not growth
 import { BENCH_MODEL, writeBenchFile } from './ingest-data';
 
@@ -33,9 +35,11 @@ async function phaseOnce(phase: Phase, file: string): Promise<Record<string, unk
     for await (const chunk of createReadStream(file)) hash.update(chunk as Buffer);
     return { sha256: hash.digest('hex') };
   }
-  const s = await summariseFile(createReadStream(file), { fileName: path.basename(file), sizeBytes: statSync(file).size });
+  // report only records how the rows were shared between threads (workers start when a core was idle).
+  let workers: ParallelStats | null = null;
+  const s = await summariseFile(createReadStream(file), { fileName: path.basename(file), sizeBytes: statSync(file).size, parallel: { report: (r) => (workers = r) } });
   const mr = s.derived.find((d) => d.key === 'magnetoresistance.at-max-field');
-  return { rowCount: s.rowCount, columns: s.columns.map((c) => `${c.name}:${c.quantity}:${c.siUcum}`), mrPercent: mr?.value, warnings: s.warnings.length };
+  return { rowCount: s.rowCount, columns: s.columns.map((c) => `${c.name}:${c.quantity}:${c.siUcum}`), mrPercent: mr?.value, warnings: s.warnings.length, workers };
 }
 
 /** Child: (optionally warm up on a small file, then) run one phase and print its time and memory as one JSON line. */
@@ -63,6 +67,7 @@ function child(phase: Phase, file: string, warmUpFile?: string): PhaseResult {
   return JSON.parse(out.trim().split('\n').pop() as string) as PhaseResult;
 }
 
+const threadShare = (w: ParallelStats | null) => (w ? `${w.workerSegments}/${w.mainSegments}` : 'none (no idle core)');
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 const mb = (bytes: number) => (bytes / MB).toFixed(1);
 const growth = (rs: PhaseResult[]) => Math.max(...rs.map((r) => r.maxRss - r.baseRss));
@@ -102,8 +107,10 @@ async function main(): Promise<void> {
       }
     }
     const ok = [report('cold (first file in a fresh process)', results.cold.hash, results.cold.summarise), report(`warm (after one ${WARM_UP_ROWS.toLocaleString('en')}-row file)`, results.warm.hash, results.warm.summarise)];
-    const check = results.cold.summarise[0].check;
+    const check = { ...results.cold.summarise[0].check, workers: undefined };
     console.log(`check: sha-256 ${String(results.cold.hash[0].check.sha256).slice(0, 16)}…; summary ${JSON.stringify(check)}`);
+    const shares = (['cold', 'warm'] as const).map((mode) => `${mode} ${results[mode].summarise.map((r) => threadShare(r.check.workers as ParallelStats | null)).join(', ')}`);
+    console.log(`  rows read on worker threads (segments worker/main thread): ${shares.join('; ')}`);
     console.log(`  expected MR at 9 T: ${(BENCH_MODEL.mrPerT2 * BENCH_MODEL.maxFieldT ** 2 * 100).toFixed(2)} % (R = R0·(1 + β·B²), bin-averaged at the top)`);
     console.log(`machine: load average ${loadavg()[0].toFixed(2)} on ${availableParallelism()} cores (other processes slow the CPU-bound phase more than the I/O-bound hash)`);
     if (!ok.every(Boolean)) process.exitCode = 1;

@@ -14,6 +14,8 @@ export type SummariseFileOptions = {
   encoding?: string;
   signal?: AbortSignal;
   onProgress?: (bytesRead: number) => void;
+  /** Worker threads for the rows of large files (see ParseOptions.parallel); the summary does not depend on it. */
+  parallel?: ParseOptions['parallel'];
 };
 
 function overrides(metadata: TransportDatasetDraft | undefined): ColumnOverride[] {
@@ -34,6 +36,7 @@ export async function summariseFile(source: ByteSource, options: SummariseFileOp
     sizeBytes: options.sizeBytes,
     signal: options.signal,
     onProgress: options.onProgress,
+    parallel: options.parallel,
   });
   return summariseTable(table, options.metadata, { fileName: options.fileName, previewPoints: options.previewPoints });
 }

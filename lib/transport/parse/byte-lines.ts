@@ -11,16 +11,13 @@ const CR = 13;
 export type ByteLineSink = (bytes: Uint8Array, start: number, end: number, lineNo: number) => boolean;
 
 /**
- * Optional fast path: takes the line starting at bytes[start] whole (finding its end itself) and returns the index of
- * its line-break byte `sep`, or -1 to have the line sent to the ByteLineSink as usual.
+ * Optional fast path: `take` reads whole lines from bytes[start] on (finding their ends itself), among the lines that
+ * start at or before `last`, the index of the chunk's last line break `sep`; it returns how many it took and sets `next`
+ * to where the first line it did not take starts. That line then goes to the ByteLineSink as usual.
  */
-export type FastLineSink = (bytes: Uint8Array, start: number, sep: number) => number;
-
-/** Index of the line break `sep` (LF, taking CR LF as one; or CR) that starts at bytes[i], or -1 when there is none. */
-export function lineBreakAt(bytes: Uint8Array, i: number, sep: number): number {
-  const c = bytes[i];
-  if (c === sep) return i;
-  return sep === LF && c === CR && bytes[i + 1] === LF ? i + 1 : -1;
+export interface FastLineSink {
+  take(bytes: Uint8Array, start: number, last: number, sep: number): number;
+  readonly next: number;
 }
 
 // In these encodings bytes below 0x80 are ASCII and 0x0A/0x0D never occur inside a multi-byte character, so lines can
@@ -116,12 +113,9 @@ export class ByteLineSplitter {
     const fast = this.fast;
     while (p <= last) {
       if (fast !== undefined) {
-        const b = fast(chunk, p, sep);
-        if (b >= 0) {
-          this.lineNo++;
-          p = b + 1;
-          continue;
-        }
+        this.lineNo += fast.take(chunk, p, last, sep);
+        p = fast.next;
+        if (p > last) break;
       }
       q = chunk.indexOf(sep, p);
       const end = sep === LF && q > p && chunk[q - 1] === CR ? q - 1 : q;
@@ -129,6 +123,17 @@ export class ByteLineSplitter {
       p = q + 1;
     }
     this.keep(chunk, p, final);
+  }
+
+  /** The line break byte once the first break has been seen (LF, also for CR LF; or CR), else undefined. */
+  get separator(): number | undefined {
+    return this.mode === 'unknown' ? undefined : this.mode === 'lf' ? LF : CR;
+  }
+
+  /** Hands over the partial line held so far (its bytes, possibly none) and forgets it. */
+  takePartial(): Uint8Array {
+    const length = this.partsLength;
+    return length === 0 ? new Uint8Array(0) : this.take(new Uint8Array(0)).subarray(0, length);
   }
 
   private emit(bytes: Uint8Array, start: number, end: number): boolean {

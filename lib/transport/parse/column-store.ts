@@ -35,6 +35,16 @@ export class ColumnSet {
     this.pos++;
   }
 
+  /** Rows that fit in the current blocks from `pos` on (after `reserve()`, at least one). */
+  room(): number {
+    return this.capacity - this.pos;
+  }
+
+  /** Counts `rows` rows written at pos, pos + 1, … (at most `room()`). */
+  advance(rows: number): void {
+    this.pos += rows;
+  }
+
   /** Column k as one array of exactly `length` values (a view of the block when it holds them all). */
   finish(k: number): Float64Array {
     const block = this.blocks[k];

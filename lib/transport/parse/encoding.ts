@@ -7,6 +7,7 @@ export type EncodingGuess = { encoding: string; bomLength: number; how: string }
 export const SNIFF_BYTES = 64 * 1024;
 
 function utf16FromNuls(sample: Uint8Array): 'utf-16le' | 'utf-16be' | undefined {
+  if (sample.indexOf(0) < 0) return undefined; // no NUL at all: not the pattern
   let evenNul = 0;
   let oddNul = 0;
   for (let i = 0; i < sample.length; i++) {
@@ -66,11 +67,14 @@ function utf32Name(sample: Uint8Array): string | undefined {
   if (b0 === 0xff && b1 === 0xfe && b2 === 0 && b3 === 0) return 'UTF-32 LE';
   if (b0 === 0 && b1 === 0 && b2 === 0xfe && b3 === 0xff) return 'UTF-32 BE';
   const quads = Math.floor(sample.length / 4);
-  if (quads < 4) return undefined;
+  if (quads < 4 || sample.indexOf(0) < 0) return undefined; // UTF-32 text is mostly NUL bytes
   let le = 0;
   let be = 0;
   for (let q = 0; q < quads; q++) {
-    const [a, b, c, d] = [sample[4 * q], sample[4 * q + 1], sample[4 * q + 2], sample[4 * q + 3]];
+    const a = sample[4 * q];
+    const b = sample[4 * q + 1];
+    const c = sample[4 * q + 2];
+    const d = sample[4 * q + 3];
     if (a !== 0 && b === 0 && c === 0 && d === 0) le++;
     if (a === 0 && b === 0 && c === 0 && d !== 0) be++;
   }

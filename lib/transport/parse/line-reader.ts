@@ -1,6 +1,8 @@
 import { ByteLineSplitter, isAsciiCompatible, lineDecoder, type FastLineSink } from './byte-lines';
 import { createDecoder, detectEncoding, SNIFF_BYTES, type StreamDecoder } from './encoding';
 import { TransportParseError } from './errors';
+import { ParallelRows, type ParallelOptions, type WorkerCrew } from './parallel-rows';
+import type { RowFormat } from './plain-rows';
 import { readAhead } from './sources';
 import type { ByteSource } from './types';
 
@@ -15,7 +17,19 @@ export type LineSink = {
   text: TextLineSink;
   bytes?: (bytes: Uint8Array, start: number, end: number, lineNo: number, decode: (bytes: Uint8Array, start: number, end: number) => string) => boolean;
   /** With `bytes`: takes whole plain lines straight from the chunk (see FastLineSink). */
-  fastRow?: FastLineSink;
+  fastRows?: FastLineSink;
+  /** With `bytes`: asked after each chunk whether to read the rest of the source in parallel (see ParallelRows). */
+  parallel?: (bytesRead: number) => ParallelPlan | undefined;
+};
+
+/** How to read the rest of a source in parallel: the workers (now the reader's to stop), the row layout, where rows go. */
+export type ParallelPlan = {
+  crew: WorkerCrew;
+  format: RowFormat;
+  columns: number;
+  appendRows: (columns: Float64Array[], rows: number, stats: Float64Array) => void;
+  bytesPerRow: number;
+  options: ParallelOptions;
 };
 
 export type ReadLinesOptions = {
@@ -111,7 +125,7 @@ export async function readLines(source: ByteSource, options: ReadLinesOptions, s
     if (bytesSink && isAsciiCompatible(encoding)) {
       const decode = lineDecoder(encoding, () => (replacementChars = true));
       const utf8 = encoding.toLowerCase().replace(/[-_]/g, '') === 'utf8';
-      splitter = new ByteLineSplitter(options.maxLineBytes, utf8, (b, start, end, no) => bytesSink(b, start, end, no, decode), sink.fastRow);
+      splitter = new ByteLineSplitter(options.maxLineBytes, utf8, (b, start, end, no) => bytesSink(b, start, end, no, decode), sink.fastRows);
       write(bytes, false);
       return;
     }
@@ -126,30 +140,64 @@ export async function readLines(source: ByteSource, options: ReadLinesOptions, s
     } else if (decoder) feed(final ? decoder.write(bytes) + decoder.end() : decoder.write(bytes), final);
   };
 
-  try {
-    for await (const chunk of readAhead(source)) {
-      if (options.signal?.aborted) throw new TransportParseError('aborted', 'Reading the file was cancelled.');
-      bytesRead += chunk.length;
-      if (bytesRead > options.maxBytes) {
-        const line = splitter ? splitter.lineNo : lineNo;
-        throw new TransportParseError('too-large', `The file is over the configured size limit of ${options.maxBytes} bytes (reading stopped in line ${line}).`, line);
-      }
-      if (!decoder) {
-        sniff.push(chunk);
-        sniffLength += chunk.length;
-        if (sniffLength >= SNIFF_BYTES) startDecoding(concat(sniff, sniffLength), false);
-      } else write(chunk, false);
-      options.onProgress?.(bytesRead);
-      if (stopped) break;
+  // Once the table's rows have a known layout, a large rest of the file may go to ParallelRows instead of the splitter.
+  let rows: ParallelRows | undefined;
+  let planned = false;
+  const startParallel = (): void => {
+    const sep = splitter?.separator;
+    const plan = splitter && sep !== undefined && !stopped ? sink.parallel?.(bytesRead) : undefined;
+    if (!splitter || sep === undefined || !plan) return;
+    planned = true;
+    const s = splitter;
+    const partial = s.takePartial();
+    try {
+      const target = {
+        format: plan.format,
+        columns: plan.columns,
+        appendRows: plan.appendRows,
+        writeLines: (bytes: Uint8Array) => s.write(bytes, false),
+        countLines: (lines: number) => void (s.lineNo += lines),
+        end: (bytes: Uint8Array) => s.write(bytes, true),
+      };
+      rows = new ParallelRows(plan.crew, target, sep, options.maxLineBytes, plan.options, plan.bytesPerRow, partial);
+    } catch {
+      plan.crew.stop();
+      s.write(partial, false); // no workers after all: the partial line goes back
     }
-  } catch (e) {
-    if (e instanceof TransportParseError) throw e;
-    throw new TransportParseError('read-failed', `The file could not be read: ${e instanceof Error ? e.message : String(e)}`);
-  }
-  if (bytesRead === 0) throw new TransportParseError('empty', 'The file is empty: line 1 has no bytes at all.', 1);
-  if (!stopped) {
-    if (!decoder) startDecoding(concat(sniff, sniffLength), true);
-    if (!stopped) write(new Uint8Array(0), true);
+  };
+
+  try {
+    try {
+      for await (const chunk of readAhead(source)) {
+        if (options.signal?.aborted) throw new TransportParseError('aborted', 'Reading the file was cancelled.');
+        bytesRead += chunk.length;
+        if (bytesRead > options.maxBytes) {
+          await rows?.settle(); // every complete line in, so the line number is the sequential read's
+          const line = splitter ? splitter.lineNo : lineNo;
+          throw new TransportParseError('too-large', `The file is over the configured size limit of ${options.maxBytes} bytes (reading stopped in line ${line}).`, line);
+        }
+        if (!decoder) {
+          sniff.push(chunk);
+          sniffLength += chunk.length;
+          if (sniffLength >= SNIFF_BYTES) startDecoding(concat(sniff, sniffLength), false);
+        } else if (rows) await rows.write(chunk, false);
+        else write(chunk, false);
+        if (!rows && !planned && splitter && sink.parallel) startParallel();
+        options.onProgress?.(bytesRead);
+        if (stopped) break;
+      }
+    } catch (e) {
+      if (e instanceof TransportParseError) throw e;
+      throw new TransportParseError('read-failed', `The file could not be read: ${e instanceof Error ? e.message : String(e)}`);
+    }
+    if (bytesRead === 0) throw new TransportParseError('empty', 'The file is empty: line 1 has no bytes at all.', 1);
+    if (!stopped) {
+      if (!decoder) startDecoding(concat(sniff, sniffLength), true);
+      if (rows) await rows.write(new Uint8Array(0), true);
+      else if (!stopped) write(new Uint8Array(0), true);
+    }
+  } finally {
+    rows?.close();
   }
   return { encoding, encodingReason, bytesRead, replacementChars, stopped: stopped || Boolean(splitter?.stopped) };
 }

@@ -85,7 +85,7 @@ export class NumberReader {
     if (i !== end) return this.notANumber(s, start, end);
     this.kind = CELL_NUMBER;
     exponent += shift;
-    // ByteRowReader applies the same condition, so both paths give bit-identical values.
+    // readPlainRows (plain-rows.ts) applies the same condition, so both paths give bit-identical values.
     if (mantissa >= EXACT_LIMIT || exponent > 22 || exponent < -22) {
       const raw = s.slice(start, end);
       const text = decimalCode === 46 ? raw : raw.replace(',', '.');

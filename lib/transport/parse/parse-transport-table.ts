@@ -15,6 +15,14 @@ export const DEFAULT_MAX_BYTES = 1024 * 1024 * 1024;
  */
 export async function parseTransportTable(source: ByteSource, options: ParseOptions = {}): Promise<ParsedTable> {
   const builder = new TableBuilder(options);
+  try {
+    return await parseWith(builder, source, options);
+  } finally {
+    builder.dispose();
+  }
+}
+
+async function parseWith(builder: TableBuilder, source: ByteSource, options: ParseOptions): Promise<ParsedTable> {
   const read = await readLines(
     source,
     {
@@ -24,7 +32,7 @@ export async function parseTransportTable(source: ByteSource, options: ParseOpti
       signal: options.signal,
       onProgress: options.onProgress,
     },
-    { text: builder.line, bytes: builder.bytesLine, fastRow: builder.fastRow },
+    { text: builder.line, bytes: builder.bytesLine, fastRows: builder, parallel: builder.parallel },
   );
   builder.end();
   if (read.replacementChars) {
@@ -39,7 +47,7 @@ export async function parseTransportTable(source: ByteSource, options: ParseOpti
   }
   const layout = builder.layout;
   if (!layout) throw new Error('unreachable: TableBuilder.end() either configures the layout or throws');
-  const columns = builder.finishColumns().map(({ spec, values, nanCount, range }) => ({
+  const columns = builder.finishColumns().map(({ spec, values, nanCount, infiniteCount, range }) => ({
     index: spec.index,
     name: spec.name,
     rawHeader: spec.rawHeader,
@@ -53,6 +61,7 @@ export async function parseTransportTable(source: ByteSource, options: ParseOpti
     values,
     range,
     nanCount,
+    infiniteCount,
   }));
   return {
     columns,

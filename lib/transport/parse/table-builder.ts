@@ -1,5 +1,4 @@
-import { lineBreakAt } from './byte-lines';
-import { ByteRowReader } from './byte-row';
+import type { FastLineSink } from './byte-lines';
 import { cellBounds, looksLikeData } from './cells';
 import { mapColumn, type ColumnMapping } from './column-mapping';
 import { ColumnSet, FIRST_BLOCK_ROWS } from './column-store';
@@ -8,6 +7,9 @@ import { TransportParseError } from './errors';
 import { splitHeaderCell } from './header';
 import { CELL_NUMBER, CELL_TEXT, NumberReader } from './number';
 import { commentBody, readPreamble, sectionName, type BufferedLine } from './preamble';
+import type { ParallelPlan } from './line-reader';
+import { cpuSample, defaultWorkers, IDLE_WINDOW_MS, idleCores, MIN_IDLE_CORES, PARALLEL_MIN_BYTES, WorkerCrew, workerThreads, type CpuSample } from './parallel-rows';
+import { emptyStats, mergeStats, readPlainRows, rowFormat, STATS_PER_COLUMN, type CellFallback, type RowCursor, type RowFormat } from './plain-rows';
 import { normaliseName } from './quantity-names';
 import type { ColumnOverride, ParseOptions } from './types';
 import { WarningLog } from './warnings';
@@ -28,7 +30,7 @@ function decimalShift(m: ColumnMapping): number {
 }
 
 /** Turns lines into columns: buffers the preamble and first data lines, decides the layout, then streams rows. */
-export class TableBuilder {
+export class TableBuilder implements FastLineSink {
   readonly warnings = new WarningLog();
   metadata: Record<string, string> = {};
   layout: Layout | undefined;
@@ -50,30 +52,152 @@ export class TableBuilder {
   private decimalCode = 46;
   private shifts = new Int8Array(0);
   private commentSemicolon = true;
-  private fast: ByteRowReader | undefined;
+  /** The byte layout of data rows once the layout is known (ASCII-compatible encodings read rows from the bytes). */
+  format: RowFormat | undefined;
+  /** FastLineSink: where the first line `take` left starts. */
+  next = 0;
+  private readonly cursor: RowCursor = { next: 0 };
+  private readonly cellText = new NumberReader();
+  /** min, max, NaN and ±Infinity counts of every column so far (emptyStats), kept by every path that adds rows. */
+  private stats: Float64Array = new Float64Array(0);
+  private bytesPerRow = 1;
+  private parallelRefused = false;
+  /** The machine's idle time when reading began, to see whether a worker would have a core to itself. */
+  private readonly cpuAtStart: CpuSample | undefined = undefined;
+  /** Workers started when a source of known, large size is opened (see WorkerCrew); handed on by `parallel`. */
+  private crew: WorkerCrew | undefined;
 
-  constructor(private readonly options: ParseOptions) {}
+  constructor(private readonly options: ParseOptions) {
+    const parallel = options.parallel;
+    const threads = parallel === false || options.maxRows !== undefined ? undefined : workerThreads();
+    if (!threads || parallel === false || (options.sizeBytes ?? Infinity) < (parallel?.minBytes ?? PARALLEL_MIN_BYTES)) return;
+    if ((parallel?.minIdleCores ?? MIN_IDLE_CORES) > 0) this.cpuAtStart = cpuSample();
+    if (options.sizeBytes !== undefined) {
+      try {
+        this.crew = new WorkerCrew(threads, Math.max(1, parallel?.workers ?? defaultWorkers()));
+      } catch {
+        this.crew = undefined; // no threads to be had: read here
+      }
+    }
+  }
+
+  /** Stops workers that were started for this table and not used (call once reading is over, however it ended). */
+  dispose(): void {
+    this.crew?.stop();
+    this.crew = undefined;
+  }
 
   /** Sink for lines as bytes (ASCII-compatible encodings): plain numeric rows are read undecoded, the rest as text. */
   bytesLine = (b: Uint8Array, start: number, end: number, no: number, decode: (b: Uint8Array, start: number, end: number) => string): boolean => {
-    if (this.fast !== undefined) {
-      this.set.reserve();
-      if (this.fast.readRow(b, start, this.set.blocks, this.set.pos) === end) return this.commitRow();
+    const format = this.format;
+    if (format !== undefined) {
+      const set = this.set;
+      set.reserve();
+      // b[end] is the line's break byte: one row that ends exactly there.
+      if (readPlainRows(b, start, end, b[end], set.blocks, set.pos, 1, format, this.cellFallback, this.cursor, this.stats) === 1 && this.cursor.next === end + 1) {
+        return this.commitRow();
+      }
     }
     const text = decode(b, start, end);
     return this.line(text, 0, text.length, no);
   };
 
-  /** FastLineSink: a plain numeric row read straight from the chunk; -1 leaves the line (and the row limit) to bytesLine. */
-  fastRow = (b: Uint8Array, start: number, sep: number): number => {
-    const fast = this.fast;
-    if (fast === undefined || (this.options.maxRows !== undefined && this.rowCount + 1 >= this.options.maxRows)) return -1;
-    const set = this.set;
-    set.reserve();
-    const stop = fast.readRow(b, start, set.blocks, set.pos);
-    const lineBreak = stop < 0 ? -1 : lineBreakAt(b, stop, sep);
-    if (lineBreak >= 0) this.commitRow();
-    return lineBreak;
+  /**
+   * FastLineSink: plain numeric rows read straight from the chunk into the columns. The row that reaches
+   * options.maxRows is left to bytesLine, which marks the table truncated and stops reading.
+   */
+  take(b: Uint8Array, start: number, last: number, sep: number): number {
+    const format = this.format;
+    let p = start;
+    let taken = 0;
+    if (format !== undefined) {
+      const limit = this.options.maxRows;
+      for (;;) {
+        const set = this.set;
+        set.reserve();
+        const room = limit === undefined ? set.room() : Math.min(set.room(), limit - 1 - this.rowCount);
+        if (room <= 0) break;
+        const rows = readPlainRows(b, p, last, sep, set.blocks, set.pos, room, format, this.cellFallback, this.cursor, this.stats);
+        set.advance(rows);
+        this.rowCount += rows;
+        taken += rows;
+        p = this.cursor.next;
+        if (rows < room || p > last) break; // stopped at a line for the text path, or at the end of the chunk
+      }
+    }
+    this.next = p;
+    return taken;
+  }
+
+  /**
+   * LineSink.parallel: a plan for reading the rest of the source on worker threads, once the row layout is known and
+   * the source is large enough (options.parallel.minBytes of its size, or of what has been read when the size is not
+   * known). Never with a row limit, without worker threads (browsers) or with options.parallel false.
+   */
+  parallel = (bytesRead: number): ParallelPlan | undefined => {
+    if (this.parallelRefused || this.format === undefined) return undefined;
+    const options = this.options.parallel;
+    const threads = options === false || this.options.maxRows !== undefined ? undefined : workerThreads();
+    if (!threads || options === false) {
+      this.parallelRefused = true;
+      return undefined;
+    }
+    const size = this.options.sizeBytes && this.options.sizeBytes > 0 ? this.options.sizeBytes : bytesRead;
+    if (size < (options?.minBytes ?? PARALLEL_MIN_BYTES)) {
+      if (this.options.sizeBytes) this.refuseParallel();
+      return undefined;
+    }
+    const minIdle = options?.minIdleCores ?? MIN_IDLE_CORES;
+    if (minIdle > 0) {
+      const start = this.cpuAtStart;
+      if (start && performance.now() - start.atMs < IDLE_WINDOW_MS) return undefined; // ask again after the next chunk
+      const now = start && cpuSample();
+      // No idle core since reading began (or no way to tell): a worker would only take time from this thread.
+      if (!start || !now || idleCores(start, now) < minIdle) {
+        this.refuseParallel();
+        return undefined;
+      }
+    }
+    this.parallelRefused = true; // one plan per table
+    let crew = this.crew;
+    this.crew = undefined; // the reader stops it now
+    try {
+      crew ??= new WorkerCrew(threads, Math.max(1, options?.workers ?? defaultWorkers()));
+    } catch {
+      return undefined; // no threads to be had: read here
+    }
+    return { crew, format: this.format, columns: this.specs.length, appendRows: this.appendRows, bytesPerRow: this.bytesPerRow, options: options ?? {} };
+  };
+
+  private refuseParallel(): void {
+    this.parallelRefused = true;
+    this.dispose();
+  }
+
+  /** Appends rows [0, rows) of whole columns read elsewhere (ParallelRows). */
+  private readonly appendRows = (columns: Float64Array[], rows: number, stats: Float64Array): void => {
+    mergeStats(this.stats, stats);
+    let from = 0;
+    while (from < rows) {
+      const set = this.set;
+      set.reserve();
+      const n = Math.min(set.room(), rows - from);
+      for (let k = 0; k < columns.length; k++) set.blocks[k].set(columns[k].subarray(from, from + n), set.pos);
+      set.advance(n);
+      from += n;
+    }
+    this.rowCount += rows;
+  };
+
+  /** Cells the byte path cannot read as plain numbers, through NumberReader; undefined for text and non-ASCII bytes. */
+  private readonly cellFallback: CellFallback = (b, start, end, k) => {
+    let text = '';
+    for (let i = start; i < end; i++) {
+      if (b[i] >= 0x80) return undefined;
+      text += String.fromCharCode(b[i]);
+    }
+    const value = this.cellText.read(text, 0, text.length, this.decimalCode, this.shifts[k]);
+    return this.cellText.kind === CELL_TEXT ? undefined : value;
   };
 
   /** Sink for readLines; false stops reading (row limit reached). */
@@ -135,11 +259,12 @@ export class TableBuilder {
     this.set = new ColumnSet(n, this.expectedRows(buffered, dataLines));
     this.bounds = new Int32Array(2 * (n + 8));
     this.row = new Float64Array(n);
+    this.stats = emptyStats(n);
     this.kinds = new Uint8Array(n);
     this.shifts = Int8Array.from(this.specs, (spec) => decimalShift(spec.mapping));
     this.decimalCode = layout.decimalSeparator.charCodeAt(0);
     this.commentSemicolon = layout.delimiter !== ';';
-    this.fast = new ByteRowReader(layout, this.shifts);
+    this.format = rowFormat(layout.delimiter, layout.decimalSeparator, this.shifts);
     this.layout = layout;
     this.buffer = [];
     for (const l of dataLines) if (!this.dataLine(l.text, 0, l.text.length, l.no)) return false;
@@ -161,6 +286,7 @@ export class TableBuilder {
     }
     const sample = dataLines.slice(0, 200);
     const perRow = sample.reduce((sum, l) => sum + l.text.length + 1, 0) / Math.max(1, sample.length);
+    this.bytesPerRow = Math.max(1, perRow);
     return Math.max(1, Math.min(limit, Math.ceil((1.1 * Math.max(0, size - before)) / Math.max(1, perRow)) + 64));
   }
 
@@ -293,7 +419,16 @@ export class TableBuilder {
   private pushRow(cols: number): boolean {
     const set = this.set;
     set.reserve();
-    for (let k = 0; k < cols; k++) set.blocks[k][set.pos] = this.row[k];
+    const stats = this.stats;
+    for (let k = 0, r = 0; k < cols; k++, r += STATS_PER_COLUMN) {
+      const v = this.row[k];
+      set.blocks[k][set.pos] = v;
+      if (v - v === 0) {
+        if (v < stats[r]) stats[r] = v;
+        if (v > stats[r + 1]) stats[r + 1] = v;
+      } else if (v !== v) stats[r + 2]++;
+      else stats[r + 3]++;
+    }
     return this.commitRow();
   }
 
@@ -318,30 +453,36 @@ export class TableBuilder {
   }
 
   /** Column values (converted to SI where the unit is known) and their statistics; empties the stores. */
-  finishColumns(): { spec: ColumnSpec; values: Float64Array; nanCount: number; range: { min: number; max: number } | null }[] {
+  finishColumns(): { spec: ColumnSpec; values: Float64Array; nanCount: number; infiniteCount: number; range: { min: number; max: number } | null }[] {
     return this.specs.map((spec, k) => {
       const values = this.set.finish(k);
       const { factor, offset, converted } = spec.mapping;
       // Decimal factors were applied while reading (decimalShift); only other factors and offsets remain.
       const scale = converted && this.shifts[k] === 0 && (factor !== 1 || offset !== 0);
+      if (!scale) {
+        // The values are final as read: their statistics were kept while reading.
+        const [min, max, nanCount, infiniteCount] = this.stats.subarray(STATS_PER_COLUMN * k, STATS_PER_COLUMN * (k + 1));
+        return { spec, values, nanCount, infiniteCount, range: min <= max ? { min, max } : null };
+      }
       // Dividing by an exact 1000 rounds once (13 mΩ → 0.013 Ω); multiplying by 0.001 can be off by one ulp.
       const inverse = 1 / factor;
       const divisor = factor < 1 && Math.abs(inverse - Math.round(inverse)) < 1e-9 * inverse ? Math.round(inverse) : 0;
       let min = Infinity;
       let max = -Infinity;
       let nanCount = 0;
+      let infiniteCount = 0;
       for (let i = 0; i < values.length; i++) {
         let v = values[i];
         if (v !== v) {
           nanCount++;
           continue;
         }
-        if (scale) values[i] = v = divisor ? v / divisor + offset : v * factor + offset;
+        values[i] = v = divisor ? v / divisor + offset : v * factor + offset;
+        if (v === Infinity || v === -Infinity) infiniteCount++;
         if (v < min && v !== -Infinity) min = v;
         if (v > max && v !== Infinity) max = v;
       }
-      return { spec, values, nanCount, range: min <= max ? { min, max } : null };
+      return { spec, values, nanCount, infiniteCount, range: min <= max ? { min, max } : null };
     });
   }
 }
-

@@ -1,4 +1,5 @@
 import type { Column } from '@/lib/schema/transport-dataset.types';
+import type { ParallelOptions } from './parallel-rows';
 
 /** What a column holds; the same vocabulary as the dataset schema's column quantity. */
 export type TransportQuantity = Column['quantity'];
@@ -50,6 +51,8 @@ export type ParsedColumn = {
   /** Finite minimum and maximum of `values`; null when every value is NaN. */
   range: { min: number; max: number } | null;
   nanCount: number;
+  /** Values that are +Infinity or −Infinity ('inf', or beyond the largest double); not in `range`. */
+  infiniteCount: number;
 };
 
 export type ParsedTable = {
@@ -85,6 +88,11 @@ export type ParseOptions = {
   /** Stop after this many data rows (for previews); the table is marked truncated. */
   maxRows?: number;
   columns?: ColumnOverride[];
+  /**
+   * Data rows of large files are also read on worker threads where Node's worker_threads exist (see ParallelRows):
+   * tuning, or false to read on the calling thread only. Values, warnings and line numbers do not depend on it.
+   */
+  parallel?: false | ParallelOptions;
   signal?: AbortSignal;
   /** Called after each chunk with the bytes read so far. */
   onProgress?: (bytesRead: number) => void;

@@ -26,8 +26,12 @@ export function pointToPointScatter(values: readonly number[], x?: readonly numb
     if (Number.isFinite(r)) z.push(r / Math.sqrt(1 + a * a + b * b));
   }
   if (z.length < 2) throw new RangeError('pointToPointScatter needs at least four points.');
-  const mean = z.reduce((s, v) => s + v, 0) / z.length;
-  const variance = z.reduce((s, v) => s + (v - mean) ** 2, 0) / (z.length - 1);
+  let sum = 0;
+  for (let i = 0; i < z.length; i++) sum += z[i];
+  const mean = sum / z.length;
+  let squares = 0;
+  for (let i = 0; i < z.length; i++) squares += (z[i] - mean) ** 2;
+  const variance = squares / (z.length - 1);
   return { sigma: Math.sqrt(variance), pointsUsed: z.length + 2, estimator: 'second-difference' };
 }
 

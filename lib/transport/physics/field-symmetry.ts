@@ -28,12 +28,21 @@ export type FieldSymmetryResult = {
 
 function branches(fieldT: readonly number[], values: readonly number[]): { pos: Curve; neg: Curve } {
   if (fieldT.length !== values.length) throw new RangeError(`field and values differ in length (${fieldT.length} vs ${values.length}).`);
-  const posIdx = fieldT.map((_, i) => i).filter((i) => fieldT[i] >= 0); // B = 0 belongs to both branches
-  const negIdx = fieldT.map((_, i) => i).filter((i) => fieldT[i] <= 0);
-  return {
-    pos: sortedCurve(posIdx.map((i) => fieldT[i]), posIdx.map((i) => values[i])),
-    neg: sortedCurve(negIdx.map((i) => -fieldT[i]), negIdx.map((i) => values[i])),
-  };
+  const pos: Curve = { x: [], y: [] };
+  const neg: Curve = { x: [], y: [] };
+  for (let i = 0; i < fieldT.length; i++) {
+    const b = fieldT[i];
+    // B = 0 belongs to both branches.
+    if (b >= 0) {
+      pos.x.push(b);
+      pos.y.push(values[i]);
+    }
+    if (b <= 0) {
+      neg.x.push(-b);
+      neg.y.push(values[i]);
+    }
+  }
+  return { pos: sortedCurve(pos.x, pos.y), neg: sortedCurve(neg.x, neg.y) };
 }
 
 function commonGrid(pos: Curve, neg: Curve, lo: number, hi: number): number[] {

@@ -5,15 +5,23 @@ export type Curve = { x: number[]; y: number[] };
 /** Sorts (x, y) pairs by x, drops non-finite pairs and averages y at repeated x (e.g. up and down sweeps). */
 export function sortedCurve(x: readonly number[], y: readonly number[]): Curve {
   if (x.length !== y.length) throw new RangeError(`x and y differ in length (${x.length} vs ${y.length}).`);
-  const pairs = x.map((xi, i) => [xi, y[i]] as const).filter(([a, b]) => Number.isFinite(a) && Number.isFinite(b));
-  pairs.sort((p, q) => p[0] - q[0]);
+  // Indices of the finite pairs in input order, stably sorted by x (already sorted input, e.g. a binned sweep, is kept).
+  const order: number[] = [];
+  let ascending = true;
+  for (let i = 0; i < x.length; i++) {
+    if (!Number.isFinite(x[i]) || !Number.isFinite(y[i])) continue;
+    if (order.length > 0 && x[order[order.length - 1]] > x[i]) ascending = false;
+    order.push(i);
+  }
+  if (!ascending) order.sort((p, q) => x[p] - x[q]);
   const out: Curve = { x: [], y: [] };
   let i = 0;
-  while (i < pairs.length) {
+  while (i < order.length) {
+    const xi = x[order[i]];
     let j = i;
     let sum = 0;
-    while (j < pairs.length && pairs[j][0] === pairs[i][0]) sum += pairs[j++][1];
-    out.x.push(pairs[i][0]);
+    while (j < order.length && x[order[j]] === xi) sum += y[order[j++]];
+    out.x.push(xi);
     out.y.push(sum / (j - i));
     i = j;
   }

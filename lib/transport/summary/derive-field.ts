@@ -7,16 +7,16 @@ import {
   sheetCarrierDensityFromHall,
   sheetHallMobility,
 } from '@/lib/transport/physics';
-import { binByX, linearFit } from './curves';
+import { linearFit } from './curves';
 import { bothSigns, fieldEvenCurve as evenCurve, valueAtZeroField as atZero } from './field-curves';
-import { curveOf, firstColumn, round, type Derivation } from './derivation';
+import { binned as binnedPairs, curveOf, firstColumn, round, type Derivation } from './derivation';
 import { resistanceCurve } from './derive-resistivity';
 
 /** MR = [R(B) − R(0)]/R(0) at the largest |B|, on the symmetrised R_xx (definition; Onsager symmetrisation). */
 export function deriveMagnetoresistance(d: Derivation, field: ParsedColumn): void {
   const r = resistanceCurve(d);
   if (!r) return;
-  const { curve, symmetrised } = evenCurve(binByX(field.values, r));
+  const { curve, symmetrised } = evenCurve(binnedPairs(d, field.values, r));
   const r0 = atZero(curve);
   if (r0 === null || r0 === 0) {
     d.notComputed.push({ key: 'magnetoresistance', reason: 'Magnetoresistance needs a reading at (or very near) zero field.' });
@@ -51,7 +51,7 @@ const E_CM = { perM2ToPerCm2: 1e-4, perM3ToPerCm3: 1e-6, m3PerCToCm3PerC: 1e6, m
 export function deriveHall(d: Derivation, field: ParsedColumn): void {
   const src = hallSource(d);
   if (!src) return;
-  const binned = binByX(field.values, src.values);
+  const binned = binnedPairs(d, field.values, src.values);
   if (binned.x.length < 3) return;
   let fit: { slope: number };
   let antisymmetrised = false;
@@ -79,7 +79,7 @@ export function deriveHall(d: Derivation, field: ParsedColumn): void {
 
 function zeroFieldValue(d: Derivation, field: ParsedColumn, name: string): number | null {
   const c = curveOf(d, name);
-  return c ? atZero(evenCurve(binByX(field.values, c.y)).curve) : null;
+  return c ? atZero(evenCurve(binnedPairs(d, field.values, c.y)).curve) : null;
 }
 
 function hallMobilityValue(d: Derivation, field: ParsedColumn, sheetCoefficient: number | null, bulkCoefficient: number | null): void {

@@ -22,8 +22,22 @@ export function deriveNoise(d: Derivation, y: ParsedColumn): void {
   if (!d.x || !y.converted) return;
   const block = middleBlock(d.x.values, y.values, NOISE_BLOCK);
   if (block.x.length < 8) return;
-  const scatter = pointToPointScatter(block.y, block.x);
-  const mean = block.y.reduce((s, v) => s + Math.abs(v), 0) / block.y.length;
+  // The estimator needs neighbours at distinct x: an x column that barely changes (a fixed current, a held
+  // temperature) leaves too few, and the scatter is then reported as not computed rather than guessed.
+  let scatter: ReturnType<typeof pointToPointScatter>;
+  try {
+    scatter = pointToPointScatter(block.y, block.x);
+  } catch (error) {
+    if (!(error instanceof RangeError)) throw error;
+    d.notComputed.push({
+      key: `noise.scatter.${y.name}`,
+      reason: `Too few points with distinct ${d.x.name} values next to each other to estimate the point-to-point scatter.`,
+    });
+    return;
+  }
+  let sum = 0;
+  for (let i = 0; i < block.y.length; i++) sum += Math.abs(block.y[i]);
+  const mean = sum / block.y.length;
   d.derived.push({
     key: `noise.scatter.${y.name}`,
     label: `Point-to-point scatter of ${y.name}`,

@@ -1,7 +1,6 @@
 import { resistivityFromCrossSection, resistivityFromSheetResistance, sheetResistanceFromBar, sheetResistanceFromResistivity, solveVanDerPauw } from '@/lib/transport/physics';
-import { binByX } from './curves';
 import { fieldEvenCurve, valueAtZeroField } from './field-curves';
-import { curveOf, firstColumn, round, type Derivation } from './derivation';
+import { binned as binnedPairs, curveOf, firstColumn, round, type Derivation } from './derivation';
 
 const scaled = (values: Float64Array, k: number) => values.map((v) => v * k);
 
@@ -76,7 +75,7 @@ export function deriveResistivity(d: Derivation): void {
 function endpointValues(d: Derivation, name: string, symbol: string, ucum: string, method: string): void {
   const c = curveOf(d, name);
   if (!c || !d.x || !d.x.converted) return;
-  const binned = binByX(c.x, c.y);
+  const binned = binnedPairs(d, c.x, c.y);
   if (binned.x.length === 0) return;
   const xName = d.x.quantity;
   const unit = d.x.siUcum ? `[${d.x.siUcum}]` : '';

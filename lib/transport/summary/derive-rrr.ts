@@ -1,6 +1,5 @@
 import { residualResistivityRatio } from '@/lib/transport/physics';
-import { binByX } from './curves';
-import { curveOf, firstColumn, round, type Derivation } from './derivation';
+import { binned, curveOf, firstColumn, round, type Derivation } from './derivation';
 import { resistanceCurve } from './derive-resistivity';
 
 // RRR is quoted when a curve reaches room temperature and the low-temperature plateau (common practice).
@@ -21,9 +20,9 @@ export function deriveRrr(d: Derivation): void {
   const rho = curveOf(d, 'resistivity');
   const y = rho?.y ?? resistanceCurve(d);
   if (!y) return;
-  const binned = binByX(temperature.values, y);
-  if (binned.x.length < 2) return;
-  const result = residualResistivityRatio(binned.x, binned.y);
+  const bins = binned(d, temperature.values, y);
+  if (bins.x.length < 2) return;
+  const result = residualResistivityRatio(bins.x, bins.y);
   d.derived.push({
     key: 'rrr',
     label: `RRR = ${rho ? 'ρ' : 'R'}(${result.high.requestedK} K)/${rho ? 'ρ' : 'R'}(${result.low.requestedK} K)`,

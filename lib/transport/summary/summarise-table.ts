@@ -2,7 +2,7 @@ import type { TransportDatasetDraft } from '@/lib/schema';
 import type { ParsedTable } from '@/lib/transport/parse';
 import { assessMeasurement } from '@/lib/transport/quality';
 import { measurementContext } from './context';
-import type { Derivation } from './derivation';
+import { collectedM4, type Derivation } from './derivation';
 import { deriveHall, deriveMagnetoresistance } from './derive-field';
 import { deriveNoise } from './derive-noise';
 import { deriveResistivity } from './derive-resistivity';
@@ -33,6 +33,8 @@ export function summariseTable(table: ParsedTable, metadata?: TransportDatasetDr
     columns: table.columns, x, sweep, geometry, metadata, currentA,
     derived: [], notComputed: [], curves: [],
     context: measurementContext(metadata, table.columns, sweep, geometry, currentA),
+    previewPoints: options.previewPoints ?? 500,
+    m4: [],
   };
   if (table.rowCount > 0) {
     deriveResistivity(d);
@@ -62,7 +64,7 @@ export function summariseTable(table: ParsedTable, metadata?: TransportDatasetDr
   if (x) {
     table.columns.forEach((c, i) => {
       if (roles[i] !== 'y') return;
-      const { points, sourcePoints } = downsampleCurve(x.values, c.values, target);
+      const { points, sourcePoints } = downsampleCurve(x.values, c.values, target, collectedM4(d, x.values, c.values));
       previews.push({ x: x.name, y: c.name, xUcum: x.siUcum ?? x.ucum, yUcum: c.siUcum ?? c.ucum, sourcePoints, points, derived: false });
     });
     for (const curve of d.curves) {

@@ -1,8 +1,12 @@
 import { execFile } from 'node:child_process';
-import { readdirSync } from 'node:fs';
+import { createReadStream, mkdtempSync, readdirSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { PARALLEL_MIN_BYTES } from '@/lib/transport/parse/parallel-rows';
+import { summariseFile } from '@/lib/transport/summarise-file';
 import type { FileSummary } from '@/lib/transport/summary';
+import { seededRandom } from './physics/seeded-random';
 import { CU_WIRE, ELEMENTARY_CHARGE_C, FILM, HALL_BAR, cuAreaM2, cuResistivity, hallRxx } from '../../fixtures/transport/params';
 
 // Runs the analyze CLI (scripts/analyze.ts through tsx, as `npx tsx` would) as a child process on every fixture.
@@ -159,5 +163,37 @@ describe('npm run analyze on every fixture', () => {
     const run = await analyze([fixture('cu-wire-rt.csv'), '--meta', fixture('cu-wire-rt.csv')]);
     expect(run).toMatchObject({ code: 2, stdout: '' });
     expect(run.stderr).toMatch(/^analyze: metadata .*cu-wire-rt\.csv: not valid JSON/);
+  }, 60_000);
+});
+
+describe('npm run analyze on a file large enough to be read on worker threads', () => {
+  it('gives, under node --conditions=react-server --import tsx (as the deposit worker runs), the sequential summary', async () => {
+    // An invented Cobalt Ridge field loop: R = 125 Ω·(1 + 0.004·B²) with noise, 250 000 rows (over 9 MiB).
+    const random = seededRandom(20261203);
+    const lines = ['# Cobalt Ridge Magnetotransport Lab - field loop (invented test data)', 't (s),T (K),B (T),R (Ohm)'];
+    for (let i = 0; i < 250_000; i++) {
+      const b = 9 * Math.sin((2 * Math.PI * i) / 125_000);
+      lines.push(`${(i * 0.05).toFixed(2)},${(2 + 0.001 * random()).toFixed(5)},${b.toFixed(6)},${(125 * (1 + 0.004 * b * b) + 0.002 * random()).toFixed(6)}`);
+    }
+    const dir = mkdtempSync(path.join(tmpdir(), 'ohmstead-analyze-'));
+    const file = path.join(dir, 'cobalt-ridge-field-loop.csv');
+    try {
+      writeFileSync(file, lines.join('\n') + '\n');
+      expect(statSync(file).size).toBeGreaterThan(PARALLEL_MIN_BYTES);
+      const run = await new Promise<Run>((resolve) => {
+        const args = ['--conditions=react-server', '--import', 'tsx', 'scripts/analyze.ts', file];
+        execFile(process.execPath, args, { cwd: ROOT, maxBuffer: 64 * 1024 * 1024 }, (error, stdout, stderr) => {
+          resolve({ code: error ? (typeof error.code === 'number' ? error.code : -1) : 0, stdout, stderr });
+        });
+      });
+      expect({ code: run.code, stderr: run.stderr }).toEqual({ code: 0, stderr: '' });
+      const sequential = await summariseFile(createReadStream(file), { fileName: path.basename(file), sizeBytes: statSync(file).size, parallel: false });
+      expect(JSON.parse(run.stdout)).toEqual(JSON.parse(JSON.stringify(sequential)));
+      expect(sequential.rowCount).toBe(250_000);
+      // R(9 T) = R0·(1 + β·B²): MR = β·B² = 32.4 % at the top of the loop (the definition; bin-averaged, so a little under).
+      expect(derived(sequential, 'magnetoresistance.at-max-field')).toBeCloseTo(32.4, 0);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
+    }
   }, 60_000);
 });

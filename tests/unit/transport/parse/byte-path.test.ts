@@ -4,7 +4,7 @@ import { bytesFromBuffer, parseTransportTable, parseTransportText, type ParsedTa
 import { seededRandom } from '../physics/seeded-random';
 import { column } from './helpers';
 
-// UTF-8 and Latin-1 rows are read straight from the bytes (ByteRowReader); UTF-16 text always takes the string path
+// UTF-8 and Latin-1 rows are read straight from the bytes (readPlainRows); UTF-16 text always takes the string path
 // (NumberReader). The same table in both encodings must give identical tables, bit for bit and warning for warning.
 
 function comparable(t: ParsedTable) {

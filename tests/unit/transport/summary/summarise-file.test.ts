@@ -116,3 +116,18 @@ describe('summariseTable via the other fixtures', () => {
     expect(s.warnings.map((w) => w.code)).toEqual(['duplicate-header', 'column-override']);
   });
 });
+
+describe('summariseFile: an x column that barely changes', () => {
+  it('reports the point-to-point scatter as not computed instead of failing (the estimator needs distinct neighbours)', async () => {
+    // A held temperature: every reading at 4.2 K but the last, so one interior point only has neighbours at distinct T.
+    const rows = ['T (K),R (Ohm)', ...Array.from({ length: 40 }, (_, i) => `${i === 39 ? 4.3 : 4.2},${(1 + i * 1e-4).toFixed(6)}`)];
+    async function* source() {
+      yield new TextEncoder().encode(rows.join('\n') + '\n');
+    }
+    const { summariseFile } = await import('@/lib/transport/summarise-file');
+    const s = await summariseFile(source());
+    expect(s.rowCount).toBe(40);
+    expect(s.notComputed.map((n) => n.key)).toContain('noise.scatter.R');
+    expect(s.derived.some((d) => d.key === 'noise.scatter.R')).toBe(false);
+  });
+});
