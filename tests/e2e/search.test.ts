@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { BG_FILM, blochGruneisenFilmDeposit } from '@/db/seeds/demo-data/bloch-gruneisen-film';
 import { VDP_FILM, vanDerPauwDeposit } from '@/db/seeds/demo-data/van-der-pauw-film';
-import { baseUrl, launchBrowser } from '@/tests/support/e2e';
+import { baseUrl, launchBrowser, watchCsp } from '@/tests/support/e2e';
 
 const COPPER = blochGruneisenFilmDeposit();
 const ITO = vanDerPauwDeposit();
@@ -23,21 +23,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-/** CSP violations reported by the console or by securitypolicyviolation events, for the whole life of the page. */
-async function watchCsp(page: Page): Promise<string[]> {
-  const violations: string[] = [];
-  page.on('console', (message) => {
-    if (/Content Security Policy/i.test(message.text())) violations.push(`${page.url()}: ${message.text()}`);
-  });
-  await page.exposeFunction('__cspViolation', (text: string) => violations.push(`${page.url()}: ${text}`));
-  await page.addInitScript(() => {
-    document.addEventListener('securitypolicyviolation', (event) => {
-      (window as unknown as { __cspViolation: (t: string) => void }).__cspViolation(`${event.violatedDirective} blocked ${event.blockedURI}`);
-    });
-  });
-  return violations;
-}
 
 async function accessibilityProblems(page: Page): Promise<string[]> {
   await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') });

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import demo from '@/db/seeds/demo-accounts.json';
 import { HttpSession } from '@/tests/support/http-session';
-import { baseUrl, launchBrowser } from '@/tests/support/e2e';
+import { baseUrl, launchBrowser, watchCsp } from '@/tests/support/e2e';
 
 const author = demo.accounts.find((a) => a.email.startsWith('ada.'))!;
 const evil = 'https://evil.example.test';
@@ -106,22 +106,6 @@ describe('cookies and CSRF', () => {
     expect((await http.session()).user?.email).toBe(author.email);
   });
 });
-
-/** Collects CSP violations from the console and from securitypolicyviolation events. */
-async function watchCsp(page: Page): Promise<string[]> {
-  const violations: string[] = [];
-  page.on('console', (message) => {
-    if (/Content Security Policy/i.test(message.text())) violations.push(`${page.url()}: ${message.text()}`);
-  });
-  // Init scripts come through the DevTools protocol, so CSP does not block this listener itself.
-  await page.exposeFunction('__cspViolation', (text: string) => violations.push(`${page.url()}: ${text}`));
-  await page.addInitScript(() => {
-    document.addEventListener('securitypolicyviolation', (event) => {
-      (window as unknown as { __cspViolation: (t: string) => void }).__cspViolation(`${event.violatedDirective} blocked ${event.blockedURI}`);
-    });
-  });
-  return violations;
-}
 
 async function visit(page: Page, path: string): Promise<void> {
   const response = await page.goto(`${baseUrl}${path}`, { waitUntil: 'networkidle' });

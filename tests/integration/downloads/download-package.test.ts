@@ -2,7 +2,7 @@
 // that stops storage reads, a missing object that breaks the stream and is audited, and an anonymous copy with no
 // names. The cached copy of published packages (built by the worker, then a 302) is in package-cache-build.test.ts.
 import { randomBytes } from 'node:crypto';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import type { IncomingMessage } from 'node:http';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -14,12 +14,10 @@ import { downloadPackage, type PackageReply } from '@/lib/downloads/download-pac
 import { PACKAGE_BUILD_TOPIC } from '@/lib/downloads/package-build-job';
 import { listOutboxRows } from '@/lib/outbox/repo';
 import { ObjectMissingError, defaultStore, listObjects, objectExists, storeAt, type ObjectStore } from '@/lib/storage/objects';
-import { closeDb, collect, dropDownloadLabs, identifying, makeDownloadLab, makeVersion, MiB, request, reviewerLink, zipEntries, type DownloadLab } from './fixtures';
+import { anonymous, closeDb, collect, dropDownloadLabs, identifying, makeDownloadLab, makeVersion, MiB, request, reviewerLink, RXX, saveZip, zipEntries, type DownloadLab } from './fixtures';
 
 let lab: DownloadLab;
 const scratch = mkdtempSync(path.join(tmpdir(), 'ohm-dl-it-'));
-const RXX = 'B (T),Rxx (Ohm),T (K)\n-9.0,101.25,1.80\n0.0,98.50,1.80\n9.0,101.27,1.80\n';
-const anonymous = { kind: 'user' as const, user: null };
 const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 
 beforeAll(async () => {
@@ -31,11 +29,6 @@ afterAll(async () => {
   rmSync(scratch, { recursive: true, force: true });
 });
 
-function saveZip(bytes: Buffer): string {
-  const file = path.join(mkdtempSync(path.join(scratch, 'zip-')), 'package.zip');
-  writeFileSync(file, bytes);
-  return file;
-}
 
 const streamOf = (reply: PackageReply) => reply.body as ReadableStream<Uint8Array>;
 
@@ -70,7 +63,7 @@ describe('packages that are never cached', () => {
     const draft = await makeVersion(lab, { state: 'draft', files: [{ name: 'draft.csv', bytes: RXX }] });
     const reply = await downloadPackage({ versionId: draft.versionId, downloader: { kind: 'user', user: lab.member }, request: request(), requestId: 'draft' });
     expect(reply).toMatchObject({ status: 200, cacheKey: null });
-    expect((await verifyBag(saveZip(await collect(streamOf(reply))))).valid).toBe(true);
+    expect((await verifyBag(saveZip(scratch, await collect(streamOf(reply))))).valid).toBe(true);
     expect(await listObjects(defaultStore(), `packages/${draft.versionId}/`)).toEqual([]);
     expect(await listOutboxRows(PACKAGE_BUILD_TOPIC, draft.versionId)).toEqual([]);
   });
@@ -80,7 +73,7 @@ describe('packages that are never cached', () => {
     const { link } = await reviewerLink(lab, embargoed.versionId, true);
     const reply = await downloadPackage({ versionId: embargoed.versionId, downloader: { kind: 'reviewer', link }, request: request(), requestId: 'anon' });
     expect(reply).toMatchObject({ status: 200, cacheKey: null });
-    const zip = saveZip(await collect(streamOf(reply)));
+    const zip = saveZip(scratch, await collect(streamOf(reply)));
     expect((await verifyBag(zip)).valid).toBe(true);
     const entries = await zipEntries(zip);
     expect(entries.length).toBe(10); // 9 tag files (bag-layout.ts) and one payload file

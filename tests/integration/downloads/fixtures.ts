@@ -1,7 +1,7 @@
 // An invented lab with versions in each state, written straight to MariaDB, and their files put into the running
 // s3rver under one unique prefix. Everything made here is removed by dropDownloadLabs().
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import yauzl from 'yauzl';
 import { db } from '@/lib/db';
@@ -13,6 +13,16 @@ import { putObject } from '@/lib/storage/put-object';
 import { uniqueEmail } from '@/tests/support/unique';
 
 export const MiB = 1024 * 1024;
+/** A small ±B magnetoresistance table (invented) used as a payload file. */
+export const RXX = 'B (T),Rxx (Ohm),T (K)\n-9.0,101.25,1.80\n0.0,98.50,1.80\n9.0,101.27,1.80\n';
+export const anonymous = { kind: 'user' as const, user: null };
+
+/** Writes a package's bytes to a fresh package.zip under `scratch` (for the bag verifier and zip readers). */
+export function saveZip(scratch: string, bytes: Buffer): string {
+  const file = path.join(mkdtempSync(path.join(scratch, 'zip-')), 'package.zip');
+  writeFileSync(file, bytes);
+  return file;
+}
 export const prefix = `test/downloads/${randomBytes(6).toString('hex')}/`;
 
 export type LabUser = { id: string; siteRole: 'admin' | 'user'; name: string };

@@ -4,7 +4,7 @@
 // A build that fails part-way leaves nothing under the key, downloads keep streaming, and the outbox retries it. A
 // stopped build reads storage no further.
 import { createHash, randomBytes } from 'node:crypto';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync } from 'node:fs';
 import type { IncomingMessage } from 'node:http';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -22,12 +22,10 @@ import { processOutboxOnce, tryOutboxJobNow } from '@/lib/outbox/process-outbox'
 import { findOutboxRow, listOutboxRows } from '@/lib/outbox/repo';
 import { defaultStore, deleteObjects, listObjects, objectExists, readObject, storeAt, type ObjectStore } from '@/lib/storage/objects';
 import { putObject } from '@/lib/storage/put-object';
-import { closeDb, collect, dropDownloadLabs, makeDownloadLab, makeVersion, MiB, request, zipEntries, type DownloadLab, type StoredFile } from './fixtures';
+import { anonymous, closeDb, collect, dropDownloadLabs, makeDownloadLab, makeVersion, MiB, request, RXX, saveZip, zipEntries, type DownloadLab, type StoredFile } from './fixtures';
 
 let lab: DownloadLab;
 const scratch = mkdtempSync(path.join(tmpdir(), 'ohm-cache-it-'));
-const RXX = 'B (T),Rxx (Ohm),T (K)\n-9.0,101.25,1.80\n0.0,98.50,1.80\n9.0,101.27,1.80\n';
-const anonymous = { kind: 'user' as const, user: null };
 const sha256Hex = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
 
 beforeAll(async () => {
@@ -39,11 +37,6 @@ afterAll(async () => {
   rmSync(scratch, { recursive: true, force: true });
 });
 
-function saveZip(bytes: Buffer): string {
-  const file = path.join(mkdtempSync(path.join(scratch, 'zip-')), 'package.zip');
-  writeFileSync(file, bytes);
-  return file;
-}
 
 const streamOf = (reply: PackageReply) => reply.body as ReadableStream<Uint8Array>;
 
@@ -81,7 +74,7 @@ describe('the cached copy of a published package', () => {
     expect(reply.cacheKey).toMatch(new RegExp(`^packages/${versionId}/[0-9a-f]{64}\\.zip$`));
     cacheKey = reply.cacheKey!;
     first = await collect(streamOf(reply));
-    const report = await verifyBag(saveZip(first));
+    const report = await verifyBag(saveZip(scratch, first));
     expect(report.problems).toEqual([]);
     expect(report).toMatchObject({ valid: true, payloadFiles: 2, payloadBytes: RXX.length + 9 * MiB + 11 });
 
@@ -102,7 +95,7 @@ describe('the cached copy of a published package', () => {
       downloadPackage({ versionId, downloader: { kind: 'user', user: lab.outsider }, request: request(), requestId: `cache-again-${n}` })));
     for (const reply of replies) {
       expect(reply).toMatchObject({ status: 200, cacheKey, buildJobId: jobId });
-      expect((await verifyBag(saveZip(await collect(streamOf(reply))))).valid).toBe(true);
+      expect((await verifyBag(saveZip(scratch, await collect(streamOf(reply))))).valid).toBe(true);
     }
     expect((await buildJobs(versionId)).map((j) => j.id)).toEqual([jobId]);
   });
@@ -111,7 +104,7 @@ describe('the cached copy of a published package', () => {
     expect(await tryOutboxJobNow(jobId, packageOutboxHandlers())).toBe('done');
     expect(await findOutboxRow(jobId)).toMatchObject({ attempts: 1, processedAt: expect.any(Date), lastError: null });
     const cached = await storedBytes(cacheKey);
-    const zip = saveZip(cached);
+    const zip = saveZip(scratch, cached);
     const report = await verifyBag(zip);
     expect(report.problems).toEqual([]);
     expect(report).toMatchObject({ valid: true, payloadFiles: 2, payloadBytes: RXX.length + 9 * MiB + 11, algorithms: ['sha256'] });
@@ -154,7 +147,7 @@ describe('a cache build that fails', () => {
     const download = async (requestId: string) => {
       const reply = await downloadPackage({ versionId: made.versionId, downloader: anonymous, request: request(), requestId });
       expect(reply.status).toBe(200);
-      const report = await verifyBag(saveZip(await collect(streamOf(reply))));
+      const report = await verifyBag(saveZip(scratch, await collect(streamOf(reply))));
       expect(report).toMatchObject({ valid: true, payloadFiles: 2 });
       return reply;
     };
