@@ -2,11 +2,10 @@
 // search with it, the browser writes the URL and asks /api/v1/search with the same canonical query string, which is
 // also the key under which answers are kept for Back and Forward.
 import { FORMULA_ALIASES, formulaKey } from '@/lib/search/normalise-formula';
-import type { FacetName } from '@/lib/search/types';
+import { FACET_NAMES, type FacetName } from '@/lib/search/types';
 
-// The facets in the order of the URL and the filter panel (lib/search FACET_NAMES; repeated here to keep this
-// module free of the error classes lib/search/types.ts carries).
-export const URL_FACETS: readonly FacetName[] = ['material', 'quantity', 'method', 'excitation', 'group', 'year'];
+// The facets in the order of the URL and the filter panel.
+export const URL_FACETS: readonly FacetName[] = FACET_NAMES;
 export const RANGE_KEYS = ['tMin', 'tMax', 'bMax', 'fMin', 'fMax'] as const;
 export type RangeKey = (typeof RANGE_KEYS)[number];
 export type RangeValues = Record<RangeKey, string>;

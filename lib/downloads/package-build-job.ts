@@ -2,12 +2,12 @@ import 'server-only';
 import { findVersionRow } from '@/lib/datasets/repo-versions';
 import { log } from '@/lib/log';
 import type { OutboxHandlers } from '@/lib/outbox/process-outbox';
-import { DEFAULT_LEASE_MS, type OutboxRow } from '@/lib/outbox/repo';
+import { DEFAULT_LEASE_MS, renewClaim, type OutboxRow } from '@/lib/outbox/repo';
 import { defaultStore, objectExists, type ObjectStore } from '@/lib/storage/objects';
 import { buildPackageIntoCache } from './build-cached-package';
 import { loadPackageInput } from './load-package-input';
 import { packageCacheKey } from './package-cache';
-import { enqueuePackageBuildOnce, PACKAGE_BUILD_TOPIC, renewPackageBuildClaim, type PackageBuildPayload } from './repo-package-builds';
+import { enqueuePackageBuildOnce, PACKAGE_BUILD_TOPIC, type PackageBuildPayload } from './repo-package-builds';
 
 // The cached copy of a published package is built by the worker, apart from any download: the first download streams
 // straight to its client and adds this job (download-package.ts); later downloads stream too until the copy exists,
@@ -69,7 +69,7 @@ export async function runPackageBuild(payload: unknown, row: Pick<OutboxRow, 'id
   }
   const started = performance.now();
   const renew = setInterval(() => {
-    renewPackageBuildClaim(row.id, DEFAULT_LEASE_MS).catch((error: unknown) => {
+    renewClaim(row.id, DEFAULT_LEASE_MS).catch((error: unknown) => {
       log('warn', 'could not renew a package build\'s claim', { jobId: row.id, error: error instanceof Error ? error.message : String(error) });
     });
   }, RENEW_EVERY_MS);

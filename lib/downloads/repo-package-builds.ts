@@ -34,10 +34,3 @@ export async function enqueuePackageBuildOnce(payload: PackageBuildPayload, hold
     return { jobId: await enqueue(trx, PACKAGE_BUILD_TOPIC, payload.versionId, payload, { holdMs }), created: true };
   });
 }
-
-/** Extends a claimed job's lease to `leaseMs` from now (a long build); false when the job is no longer open. */
-export async function renewPackageBuildClaim(jobId: number, leaseMs: number): Promise<boolean> {
-  const changed = await db()('outbox').where({ id: jobId, topic: PACKAGE_BUILD_TOPIC }).whereNull('processed_at')
-    .update({ next_attempt_at: db().raw('DATE_ADD(UTC_TIMESTAMP(3), INTERVAL ? MICROSECOND)', [Math.round(leaseMs * 1000)]) });
-  return changed === 1;
-}

@@ -82,6 +82,11 @@ export async function markProcessed(id: number): Promise<void> {
   await db()('outbox').where('id', id).update({ processed_at: db().raw('UTC_TIMESTAMP()'), last_error: null, next_attempt_at: null });
 }
 
+/** Extends a claimed job's lease to `leaseMs` from now (a long-running job); false when the job is no longer open. */
+export async function renewClaim(id: number, leaseMs = DEFAULT_LEASE_MS): Promise<boolean> {
+  return (await db()('outbox').where('id', id).whereNull('processed_at').update({ next_attempt_at: inFuture(leaseMs) })) === 1;
+}
+
 /** Records a failed try and when to try again. */
 export async function markFailed(id: number, error: string, retryInMs: number): Promise<void> {
   await db()('outbox').where('id', id).whereNull('processed_at').update({ last_error: error.slice(0, 4000), next_attempt_at: inFuture(retryInMs) });

@@ -2,11 +2,11 @@
 // validateWith, which is browser-safe), plus the checks a schema cannot express (a range whose ends are swapped).
 import schema from '@/schemas/api/search-query.schema.json';
 import { validateWith } from '@/lib/validation/validate';
-import { SearchQueryError, type SearchQuery } from './types';
+import { FACET_NAMES, SearchQueryError, type SearchQuery } from './types';
 
 export const DEFAULT_PAGE_SIZE = 20;
 
-const LIST_KEYS = new Set(['material', 'quantity', 'method', 'excitation', 'group', 'year']);
+const LIST_KEYS = new Set<string>(FACET_NAMES);
 const NUMBER_KEYS = new Set(['tMin', 'tMax', 'bMax', 'fMin', 'fMax', 'page', 'pageSize']);
 const BOOLEAN_KEYS = new Set(['allVersions']);
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)(e[+-]?\d+)?$/i;
