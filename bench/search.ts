@@ -300,8 +300,11 @@ if (!BASE) {
   await cannon(paths, CONNECTIONS, 3); // warm-up, not counted
   const loaded = await cannon(paths, CONNECTIONS, HTTP_S);
   const one = await cannon(paths, 1, Math.min(10, HTTP_S));
+  // The server's floor: the same load on a route that does nothing (GET /api/health/live: proxy, router, JSON reply).
+  const floorRun = await cannon(['/api/health/live'], CONNECTIONS, Math.min(10, HTTP_S));
   const l = stats(loaded);
   const o = stats(one);
+  const f = stats(floorRun);
   p95Http = l.p95;
   console.log(`  HTTP [server], ${CONNECTIONS} connections for ${HTTP_S} s: ${l.n} requests (${l.rate.toFixed(0)}/s): ` +
     `p50 ${ms(l.p50)}, p95 ${ms(l.p95)}, p99 ${ms(l.p99)}; errors ${loaded.errors}; ${statusText(loaded)} — target p95 ≤ 25 ms`);
@@ -309,6 +312,9 @@ if (!BASE) {
   console.log(`  at ${CONNECTIONS} connections a request mostly waits its turn: ${CONNECTIONS} / ${l.rate.toFixed(0)} per s = ` +
     `${ms((CONNECTIONS / l.rate) * 1000)} mean; one connection alone: p50 ${ms(o.p50)}, p95 ${ms(o.p95)}, p99 ${ms(o.p99)} ` +
     `(${o.rate.toFixed(0)}/s; errors ${one.errors})`);
+  console.log(`  floor: GET /api/health/live, ${CONNECTIONS} connections: ${f.rate.toFixed(0)}/s, p50 ${ms(f.p50)}, p95 ${ms(f.p95)} ` +
+    `(errors ${floorRun.errors}) — a search costs the server ${((1 / l.rate - 1 / f.rate) * 1000).toFixed(2)} ms more than an empty answer; ` +
+    `p95 ≤ 25 ms at ${CONNECTIONS} connections needs about ${((CONNECTIONS / 25) * 1000).toFixed(0)} answers per second`);
   const ratio = (inProcess: number | undefined, name: string) =>
     inProcess === undefined ? '' : `${(l.p95 / inProcess).toFixed(1)}× against in-process [${name}] p95 ${ms(inProcess)}`;
   console.log(`  HTTP / in-process p95: ${[ratio(p95Fixture, 'fixture'), ratio(synthetic.p95, 'synthetic')].filter(Boolean).join('; ')} ` +

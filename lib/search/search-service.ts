@@ -2,14 +2,23 @@ import 'server-only';
 import { log } from '@/lib/log';
 import { buildSearchDoc, type PublishedVersionSource } from './build-search-doc';
 import { latestSearchChangeId, loadPublishedSources, searchChangesSince } from './repo';
+import { localSearchChanges } from './search-changed';
 import { SearchIndex } from './search-index';
 import type { SearchDoc, SearchQuery, SearchResult } from './types';
 
 // One index per app instance: built from the database on first use, then kept current by following the
 // 'search.changed' log in the outbox (every instance reads every entry; none consumes it for the others).
+// The log is read at most once per CATCH_UP_INTERVAL_MS rather than on every search: a change committed by another
+// instance shows here within that interval (1 s, as a search engine's usual refresh interval), while one committed by
+// this instance is caught up before the next search (searchChangeCommitted in search-changed.ts).
+export const CATCH_UP_INTERVAL_MS = 1000;
 
 /** `byDataset` remembers which versions each dataset has in the index, to drop withdrawn or superseded ones. */
-type State = { index: SearchIndex; cursor: number; builtAt: Date; byDataset: Map<string, Set<string>> };
+type State = {
+  index: SearchIndex; cursor: number; builtAt: Date; byDataset: Map<string, Set<string>>;
+  /** When the last complete catch-up started (performance.now()), and the local change count it had seen. */
+  caughtUpAt: number; localSeen: number;
+};
 
 const holder = globalThis as unknown as { ohmsteadSearch?: Promise<State>; ohmsteadSearchCatchUp?: Promise<void> };
 
@@ -27,9 +36,13 @@ function docsOf(sources: PublishedVersionSource[]) {
 
 async function build(): Promise<State> {
   const started = Date.now();
+  const startedAt = performance.now();
+  const localSeen = localSearchChanges();
   const cursor = await latestSearchChangeId(); // read first: a change committed during the load is replayed after
   const sources = await loadPublishedSources();
-  const state: State = { index: new SearchIndex({ capacity: sources.length }), cursor, builtAt: new Date(), byDataset: new Map() };
+  const state: State = {
+    index: new SearchIndex({ capacity: sources.length }), cursor, builtAt: new Date(), byDataset: new Map(), caughtUpAt: startedAt, localSeen,
+  };
   for (const doc of docsOf(sources)) addDoc(state, doc);
   log('info', 'search: index built', { versions: state.index.size, ms: Date.now() - started });
   return state;
@@ -44,9 +57,11 @@ function addDoc(state: State, doc: SearchDoc): void {
 
 /** Applies every logged change since the state's cursor: re-reads the changed datasets and replaces their versions. */
 async function catchUp(state: State): Promise<void> {
+  const startedAt = performance.now();
+  const localSeen = localSearchChanges();
   for (;;) {
     const changes = await searchChangesSince(state.cursor);
-    if (changes.lastId === state.cursor) return;
+    if (changes.lastId === state.cursor) break;
     if (changes.rebuild) {
       const fresh = await build();
       Object.assign(state, fresh);
@@ -65,6 +80,13 @@ async function catchUp(state: State): Promise<void> {
     for (const doc of docsOf(sources)) addDoc(state, doc);
     state.cursor = changes.lastId;
   }
+  state.caughtUpAt = startedAt;
+  state.localSeen = localSeen;
+}
+
+/** Whether the log may hold entries this state has not applied: this instance committed one, or the interval passed. */
+function mayBeBehind(state: State): boolean {
+  return localSearchChanges() !== state.localSeen || performance.now() - state.caughtUpAt >= CATCH_UP_INTERVAL_MS;
 }
 
 async function current(): Promise<State> {
@@ -73,6 +95,7 @@ async function current(): Promise<State> {
     throw error;
   });
   const state = await holder.ohmsteadSearch;
+  if (!holder.ohmsteadSearchCatchUp && !mayBeBehind(state)) return state;
   // One catch-up at a time per instance; concurrent requests wait for it rather than each re-reading the log.
   holder.ohmsteadSearchCatchUp ??= catchUp(state).finally(() => {
     holder.ohmsteadSearchCatchUp = undefined;

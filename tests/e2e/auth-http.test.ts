@@ -64,4 +64,12 @@ describe('health', () => {
       ['database', true], ['object-storage', true], ['smtp', true], ['doi-registration', true],
     ]);
   });
+
+  it('answers the liveness probe without touching any service, with the security headers', async () => {
+    const response = await fetch(new URL('/api/health/live', baseUrl));
+    expect(response.status).toBe(200);
+    expect(await response.json()).toEqual({ status: 'ok' });
+    expect(response.headers.get('cache-control')).toBe('no-store');
+    expect(response.headers.get('x-content-type-options')).toBe('nosniff');
+  });
 });

@@ -6,7 +6,7 @@ import { createNewVersion } from '@/lib/publishing/create-new-version';
 import { publishVersion } from '@/lib/publishing/publish-version';
 import { withdrawVersion } from '@/lib/publishing/withdraw-version';
 import { SEARCH_CHANGED_TOPIC } from '@/lib/search/repo';
-import { forgetSearchIndex, searchIndexStatus, searchPublished } from '@/lib/search/search-service';
+import { CATCH_UP_INTERVAL_MS, forgetSearchIndex, searchIndexStatus, searchPublished } from '@/lib/search/search-service';
 import { closeDb, makeDraft, makePubLab, removePubLab, type PubLab } from '../publishing/fixtures';
 
 let lab: PubLab;
@@ -62,6 +62,29 @@ describe('search index kept current from the outbox', () => {
     expect(after.builtAt).toBe(before.builtAt);
     expect(after.cursor).toBeGreaterThan(before.cursor);
     expect(await titles('halloway')).toEqual([['Other instance halloway', 1]]);
+  });
+
+  it('a change committed by another process shows within the catch-up interval', async () => {
+    const d = await makeDraft(lab, lab.member, 'Renamed elsewhere copper ribbon');
+    await publishVersion({ user: lab.owner, versionId: d.versionId }, noJobs);
+    expect(await titles('wrenfield')).toEqual([]);
+    // What another instance's transaction leaves behind: the row changed and a log entry, and no signal to this process.
+    await db().transaction(async (trx) => {
+      await trx('dataset_versions').where('id', d.versionId).update({ title: 'Renamed elsewhere copper ribbon wrenfield' });
+      await trx('outbox').insert({ topic: SEARCH_CHANGED_TOPIC, aggregate_id: d.datasetId, payload: JSON.stringify({ versionId: d.versionId }) });
+    });
+    const committed = performance.now();
+    let seenAfter = Infinity;
+    while (performance.now() - committed < CATCH_UP_INTERVAL_MS + 2000) {
+      if ((await titles('wrenfield')).length === 1) {
+        seenAfter = performance.now() - committed;
+        break;
+      }
+      await new Promise((done) => setTimeout(done, 50));
+    }
+    // The interval plus one catch-up (a database round trip and re-reading one dataset) and the polling step.
+    expect(seenAfter).toBeLessThan(CATCH_UP_INTERVAL_MS + 1000);
+    expect(await titles('wrenfield')).toEqual([['Renamed elsewhere copper ribbon wrenfield', 1]]);
   });
 
   it('never shows drafts, versions in review or withdrawn ones, whatever the filters say', async () => {
