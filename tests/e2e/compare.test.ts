@@ -2,11 +2,10 @@
 // published datasets in the basket (found through the search API), overlays them, switches to a log axis and
 // downloads the CSV, whose header must cite both DOIs and whose rows hold every point (full resolution).
 import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { APIRequestContext, Browser, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import type { APIRequestContext } from 'playwright-core';
 import demo from '@/db/seeds/demo-accounts.json';
-import { baseUrl, launchBrowser } from '@/tests/support/e2e';
+import { accessibilityProblems, baseUrl, browserForFile } from '@/tests/support/e2e';
 
 const reuser = demo.accounts.find((a) => a.email.startsWith('reuser@'))!; // signed-in reuser in no group
 const LABS = ['larkspur-cryogenic', 'tidewater-thin-films'] as const;
@@ -14,22 +13,7 @@ const LABS = ['larkspur-cryogenic', 'tidewater-thin-films'] as const;
 type Hit = { doc: { versionId: string; title: string } };
 type Entry = { key: string; source: { doi: string | null; title: string; group: { slug: string } }; chosen: { x: string; y: string }; options: { x: { column: string }; y: { column: string }; sourcePoints: number }[] };
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function accessibilityProblems(page: Page): Promise<string[]> {
-  await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') });
-  return page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
-    const result = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21aa', 'wcag22aa'] } });
-    return result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
-  });
-}
+const browser = browserForFile();
 
 /** Adds the main curve of the first published dataset of `group` that has one (search API, then POST to the basket). */
 async function addFirstCurveOf(request: APIRequestContext, group: string): Promise<string> {
@@ -47,7 +31,7 @@ async function addFirstCurveOf(request: APIRequestContext, group: string): Promi
 
 describe('comparing curves in Chromium', () => {
   it('overlays curves of two labs, switches to log y and exports a CSV citing both DOIs at full resolution', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
     const page = await context.newPage();
     await page.goto(`${baseUrl}/sign-in?callbackUrl=%2Fcompare`);
     await page.getByLabel('E-mail address', { exact: true }).first().fill(reuser.email);
@@ -105,7 +89,7 @@ describe('comparing curves in Chromium', () => {
   });
 
   it('shows the empty state with the way to Search to a visitor with no curves', async () => {
-    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    const page = await browser().newPage({ viewport: { width: 390, height: 844 } });
     await page.goto(`${baseUrl}/compare`);
     await expect.poll(() => page.getByText('No curves yet — find some through').isVisible()).toBe(true);
     expect(await page.getByRole('link', { name: 'Search', exact: true }).last().getAttribute('href')).toBe('/search');

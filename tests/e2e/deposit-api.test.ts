@@ -1,6 +1,6 @@
-// The deposit API over HTTP against the production build `npm test` serves, signed in as the demo author.
-// Expected behaviour: issue 4 (deposit API): routes, statuses and the error body
-// `{ error: { code, message, details, requestId } }`; demo accounts: db/seeds/demo-accounts.json.
+// The deposit API over HTTP against the production build `npm test` serves, signed in as the demo author: routes,
+// statuses and the error body `{ error: { code, message, details, requestId } }` (lib/http/handler.ts); demo
+// accounts: db/seeds/demo-accounts.json.
 import { describe, expect, it } from 'vitest';
 import demo from '@/db/seeds/demo-accounts.json';
 import completeRecord from '@/tests/fixtures/transport/cu-wire-rt.meta.json';

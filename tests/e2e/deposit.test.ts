@@ -1,48 +1,31 @@
 // The author's deposit journey in Chromium against the build `npm test` serves (with its worker analysing files):
 // sign in, start a dataset, upload a file whose unit the detector gets wrong, fix it, fill the geometry, see ρ.
 import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import demo from '@/db/seeds/demo-accounts.json';
-import { baseUrl, launchBrowser } from '@/tests/support/e2e';
+import { accessibilityProblems, baseUrl, browserForFile } from '@/tests/support/e2e';
 
 const author = demo.accounts.find((a) => a.email.startsWith('ada.'))!; // member of larkspur-cryogenic
 const FILE = 'cu-wire-caps.csv';
-let browser: Browser;
+const browser = browserForFile();
 let upload: string;
 
-beforeAll(async () => {
-  browser = await launchBrowser();
+beforeAll(() => {
   // tests/fixtures/transport/cu-wire-rt.csv with its resistance unit in capitals: 'MOHM' reads as mega-ohm (and the
   // parser says it may mean milli), so the author has a real unit to fix.
   const csv = readFileSync(path.resolve(import.meta.dirname, '../fixtures/transport/cu-wire-rt.csv'), 'utf8');
   upload = path.join(mkdtempSync(path.join(tmpdir(), 'ohm-e2e-')), FILE);
   writeFileSync(upload, csv.replace('R [mOhm]', 'R (MOHM)'));
 });
-afterAll(async () => {
-  await browser?.close();
-});
-
-/** axe-core's serious and critical findings on the page as it is now (WCAG 2.2 AA rules). */
-async function accessibilityProblems(page: Page): Promise<string[]> {
-  await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') });
-  return page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
-    const result = await axe.run(document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21aa', 'wcag22aa'] } });
-    return result.violations
-      .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-      .map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
-  });
-}
 
 const derivedOf = (page: Page) => page.locator(`section[aria-label="Derived quantities and flags of ${FILE}"]`);
 
 describe('depositing in Chromium', () => {
   it('the demo author uploads a file, fixes a unit, fills the geometry and sees ρ; a reload keeps the draft', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
 
     // Authoring needs a session: the deposit page sends visitors to sign in and back again.
     await page.goto(`${baseUrl}/deposit`);
@@ -104,7 +87,7 @@ describe('depositing in Chromium', () => {
   });
 
   it('an unknown draft shows the not-found page inside the authoring area', async () => {
-    const page = await browser.newPage();
+    const page = await browser().newPage();
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
     await page.getByLabel('Password', { exact: true }).fill(demo.password);

@@ -1,6 +1,6 @@
 // The group and audit API over HTTP against the app `npm test` serves, signed in as demo users.
-// Expected behaviour: issue 8 item 3 and the bodies in schemas/api/ (create-group, create-invitation,
-// change-member-role, transfer-ownership, audit-query); error body `{ error: { code, message, details, requestId } }`.
+// Request bodies: schemas/api/ (create-group, create-invitation, change-member-role, transfer-ownership, audit-query);
+// error body `{ error: { code, message, details, requestId } }` (lib/http/handler.ts).
 import { describe, expect, it } from 'vitest';
 import demo from '@/db/seeds/demo-accounts.json';
 import { baseUrl } from '@/tests/support/e2e';

@@ -1,37 +1,17 @@
 // Group administration in Chromium against the app `npm test` serves: the demo owner invites a new address, the
 // mail shows on the development mailbox page, the invitee signs in with an e-mailed link and accepts; the owner
 // then sees the new member and removes them again. Demo accounts: db/seeds/demo-accounts.json.
-import { createRequire } from 'node:module';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import demo from '@/db/seeds/demo-accounts.json';
-import { baseUrl, launchBrowser } from '@/tests/support/e2e';
+import { accessibilityProblems, baseUrl, browserForFile } from '@/tests/support/e2e';
 
 const owner = demo.accounts.find((a) => a.email.startsWith('maren.'))!; // owner of larkspur-cryogenic
 const GROUP = 'Larkspur Cryogenic Lab';
-let browser: Browser;
 
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-/**
- * axe-core's serious and critical findings in <main> as it is now (WCAG 2.2 AA rules). The shared site header is
- * checked by the other page tests, not here.
- */
-async function accessibilityProblems(page: Page): Promise<string[]> {
-  await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') });
-  return page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: Element | Document, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
-    const result = await axe.run(document.querySelector('main') ?? document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21aa', 'wcag22aa'] } });
-    return result.violations
-      .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-      .map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
-  });
-}
+const browser = browserForFile();
+// axe-core checks <main> only: the shared site header is checked by the other page tests, not here.
+const A11Y_SCOPE = { within: 'main' };
 
 /** The first link on /dev/mailbox in the newest message to `to` with this subject whose address contains `part`. */
 async function linkFromMailbox(page: Page, to: string, subject: string, part: string): Promise<string> {
@@ -48,7 +28,7 @@ async function linkFromMailbox(page: Page, to: string, subject: string, part: st
 describe('inviting a new person in Chromium', () => {
   it('the owner invites, the invitee finds the mail, signs in by link and accepts; the owner sees and removes them', async () => {
     const invitee = `e2e-invitee-${Date.now()}@invitee.example`;
-    const ownerPage = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const ownerPage = await browser().newPage({ viewport: { width: 1280, height: 900 } });
 
     // The owner signs in and lands on the members page of their group.
     await ownerPage.goto(`${baseUrl}/groups/larkspur-cryogenic/members`);
@@ -58,7 +38,7 @@ describe('inviting a new person in Chromium', () => {
     await ownerPage.getByRole('button', { name: 'Sign in', exact: true }).click();
     await ownerPage.waitForURL(`${baseUrl}/groups/larkspur-cryogenic/members`);
     expect(await ownerPage.getByRole('heading', { level: 1 }).innerText()).toBe(GROUP);
-    expect(await accessibilityProblems(ownerPage)).toEqual([]);
+    expect(await accessibilityProblems(ownerPage, A11Y_SCOPE)).toEqual([]);
 
     // Invite as member; the page confirms the mail went out and lists the open invitation.
     await ownerPage.getByLabel('E-mail address', { exact: true }).fill(invitee);
@@ -69,14 +49,14 @@ describe('inviting a new person in Chromium', () => {
     expect(await open.innerText()).toContain('Valid until');
 
     // The invitee has no account and no session: the mailbox page shows the invitation with its link.
-    const guest = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const guest = await browser().newContext({ viewport: { width: 390, height: 844 } });
     const page = await guest.newPage();
     const invitationUrl = await linkFromMailbox(page, invitee, `Invitation to join ${GROUP} on Ohmstead`, '/invitations/');
     expect(invitationUrl).toMatch(/\/invitations\/[A-Za-z0-9_-]{43}$/);
     await page.goto(invitationUrl);
     expect(await page.getByRole('heading', { level: 1 }).innerText()).toBe(`Join ${GROUP}?`);
     expect(await page.locator('main').innerText()).toContain(`To accept, sign in with ${invitee}.`);
-    expect(await accessibilityProblems(page)).toEqual([]);
+    expect(await accessibilityProblems(page, A11Y_SCOPE)).toEqual([]);
 
     // A sign-in link by e-mail creates the account and comes back to the invitation.
     await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
@@ -89,7 +69,7 @@ describe('inviting a new person in Chromium', () => {
     await page.getByRole('button', { name: `Accept and join ${GROUP}` }).click();
     await page.waitForURL(/\/groups\/larkspur-cryogenic\/members\?welcome=1$/);
     expect(await page.getByRole('status').filter({ hasText: `Welcome to ${GROUP}` }).innerText()).toContain('You joined as member.');
-    expect(await accessibilityProblems(page)).toEqual([]);
+    expect(await accessibilityProblems(page, A11Y_SCOPE)).toEqual([]);
 
     // The link is used up: opening it again says so.
     await page.goto(invitationUrl);

@@ -1,30 +1,12 @@
 // The public dataset page in Chromium, as an anonymous visitor reaches it from the published list: an open dataset
 // with DOI, citations and files, and an embargoed one with its lock and no curves. axe-core checks both.
-import { createRequire } from 'node:module';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { baseUrl, launchBrowser } from '@/tests/support/e2e';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { accessibilityProblems, baseUrl, browserForFile } from '@/tests/support/e2e';
 
-let browser: Browser;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-/** axe-core's serious and critical findings (WCAG 2.2 AA rules) in the page below the site header, which is the shell's. */
-async function accessibilityProblems(page: Page): Promise<string[]> {
-  await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') });
-  return page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: object, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
-    const result = await axe.run({ exclude: [['body > header']] }, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21aa', 'wcag22aa'] } });
-    return result.violations
-      .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-      .map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
-  });
-}
+const browser = browserForFile();
+// axe-core checks the page below the site header, which is the shell's.
+const A11Y_SCOPE = { exclude: ['body > header'] };
 
 /** The address of the first published card (search page, then home page) that does or does not show an embargo. */
 async function publishedCardHref(page: Page, embargoed: boolean): Promise<string> {
@@ -43,7 +25,7 @@ async function publishedCardHref(page: Page, embargoed: boolean): Promise<string
 
 describe('the dataset page for an anonymous visitor', () => {
   it('shows title, DOI, the four citation formats and the files with their SHA-256', async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    const page = await browser().newPage({ viewport: { width: 1280, height: 900 } });
     const href = await publishedCardHref(page, false);
     expect(href).toMatch(/^\/datasets\/[0-9a-f-]{36}\/versions\/\d+$/);
     const response = await page.goto(`${baseUrl}${href}`);
@@ -75,12 +57,12 @@ describe('the dataset page for an anonymous visitor', () => {
     const jsonLd = JSON.parse(await page.locator('script[type="application/ld+json"]').innerText());
     expect(jsonLd).toMatchObject({ '@context': 'https://schema.org', '@type': 'Dataset', name: title });
 
-    expect(await accessibilityProblems(page)).toEqual([]);
+    expect(await accessibilityProblems(page, A11Y_SCOPE)).toEqual([]);
     await page.close();
   });
 
   it('shows an embargoed dataset with its lock and date, and no curves or download links', async () => {
-    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    const page = await browser().newPage({ viewport: { width: 390, height: 844 } });
     const href = await publishedCardHref(page, true);
     await page.goto(`${baseUrl}${href}`);
     const lock = page.locator('article header').getByText(/Files open on \d{4}-\d{2}-\d{2} at 00:00 UTC/);
@@ -92,12 +74,12 @@ describe('the dataset page for an anonymous visitor', () => {
     expect(await page.locator('#files tbody tr').count()).toBeGreaterThan(0);
     // A phone-width page never scrolls sideways.
     expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBe(0);
-    expect(await accessibilityProblems(page)).toEqual([]);
+    expect(await accessibilityProblems(page, A11Y_SCOPE)).toEqual([]);
     await page.close();
   });
 
   it('answers 404 for an unknown dataset and for a version that does not exist', async () => {
-    const page = await browser.newPage();
+    const page = await browser().newPage();
     expect((await page.goto(`${baseUrl}/datasets/00000000-0000-4000-8000-000000000000`))?.status()).toBe(404);
     const href = await publishedCardHref(page, false);
     expect((await page.goto(`${baseUrl}${href.replace(/\d+$/, '999')}`))?.status()).toBe(404);

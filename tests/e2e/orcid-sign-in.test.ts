@@ -1,24 +1,17 @@
 // Sign in with ORCID in Chromium, against the local ORCID fake that `npm test` starts (ORCID_ISSUER): the app's
 // button, the fake's researcher page, next-auth's callback with PKCE and state, and the iD shown in settings.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import demo from '@/db/seeds/demo-accounts.json';
 import { RESEARCHERS } from '@/scripts/fakes/orcid-researchers';
-import { baseUrl, launchBrowser } from '@/tests/support/e2e';
+import { baseUrl, browserForFile } from '@/tests/support/e2e';
 import { requireEnv } from '@/tests/support/services';
 
 const issuer = requireEnv('ORCID_ISSUER');
-let browser: Browser;
 
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserForFile();
 
 async function signInWithOrcidAs(fullName: string) {
-  const page = await browser.newPage();
+  const page = await browser().newPage();
   await page.goto(`${baseUrl}/sign-in?callbackUrl=${encodeURIComponent('/settings/tokens')}`);
   await page.getByRole('button', { name: 'Sign in with ORCID' }).click();
   await page.waitForURL((url) => url.href.startsWith(`${issuer}/authorize`));

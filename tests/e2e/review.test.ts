@@ -1,18 +1,17 @@
 // A referee's journey in Chromium against the build `npm test` serves (its worker analyses uploads). The demo author
 // deposits a small draft in her group through the API, finds it among her drafts and creates an anonymous reviewer
 // link; a fresh browser context opens the link, sees the confidential band and the curves, and downloads the package,
-// which lib/bagit's verifier accepts and which holds no creator, affiliation or group name. Rules: issue 6.
+// which lib/bagit's verifier accepts and which holds no creator, affiliation or group name.
 import { createHash } from 'node:crypto';
 import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { afterAll, describe, expect, it } from 'vitest';
 import yauzl from 'yauzl';
 import demo from '@/db/seeds/demo-accounts.json';
 import { verifyBag } from '@/lib/bagit/verify-bag';
 import meta from '@/tests/fixtures/transport/cu-wire-rt.meta.json';
-import { baseUrl, launchBrowser } from '@/tests/support/e2e';
+import { baseUrl, browserForFile } from '@/tests/support/e2e';
 import { HttpSession } from '@/tests/support/http-session';
 
 const author = demo.accounts.find((a) => a.email.startsWith('ada.'))!; // member of larkspur-cryogenic
@@ -24,14 +23,10 @@ const FILE = 'cu-wire-review.csv';
 /** Names the anonymous copy must never show: the record's creator, her ORCID iD and affiliation, the author, the group. */
 const NAMES = ['Imogen Vale', 'Imogen', meta.creators[0]!.orcid, 'Ada Penhallow', 'Penhallow', GROUP.name, GROUP.institution];
 
-let browser: Browser;
+const browser = browserForFile();
 const scratch = mkdtempSync(path.join(tmpdir(), 'ohm-e2e-review-'));
 
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
+afterAll(() => {
   rmSync(scratch, { recursive: true, force: true });
 });
 
@@ -102,7 +97,7 @@ describe('a referee with an anonymous review link', () => {
     const reviewPath = new URL(created.url).pathname;
     expect(reviewPath).toBe(`/review/${created.token}`);
 
-    const context = await browser.newContext({ acceptDownloads: true, viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ acceptDownloads: true, viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     const response = await page.goto(`${baseUrl}${reviewPath}`);
     expect(response?.status()).toBe(200);
@@ -134,7 +129,7 @@ describe('a referee with an anonymous review link', () => {
 
     // Revoked, the same address shows why it stopped working, and the package route refuses with 403.
     await json(await http.fetch(`/api/v1/reviewer-links/${created.link.id}`, { method: 'DELETE' }), 200);
-    const after = await browser.newPage();
+    const after = await browser().newPage();
     await after.goto(`${baseUrl}${reviewPath}`);
     await after.getByRole('heading', { name: 'Review link revoked' }).waitFor();
     expect((await fetch(`${baseUrl}${reviewPath}/package`)).status).toBe(403);

@@ -3,12 +3,11 @@
 // axis, CSV export). The expected titles and temperature spans come from the demo seed (db/seeds/demo-data): the
 // copper film of Larkspur Cryogenic Lab is measured from 2 K, the ITO film of Tidewater Thin Films Group from 10 K.
 import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { BG_FILM, blochGruneisenFilmDeposit } from '@/db/seeds/demo-data/bloch-gruneisen-film';
 import { VDP_FILM, vanDerPauwDeposit } from '@/db/seeds/demo-data/van-der-pauw-film';
-import { baseUrl, launchBrowser, watchCsp } from '@/tests/support/e2e';
+import { accessibilityProblems, baseUrl, browserForFile, watchCsp } from '@/tests/support/e2e';
 
 const COPPER = blochGruneisenFilmDeposit();
 const ITO = vanDerPauwDeposit();
@@ -16,22 +15,9 @@ const ITO = vanDerPauwDeposit();
 const T_FROM = (BG_FILM.fromK + VDP_FILM.fromK) / 2; // 6 K
 const T_TO = 200;
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
-
-async function accessibilityProblems(page: Page): Promise<string[]> {
-  await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') });
-  return page.evaluate(async () => {
-    const axe = (window as unknown as { axe: { run: (ctx: object, opts: object) => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe;
-    const result = await axe.run({ exclude: [['body > header']] }, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21aa', 'wcag22aa'] } });
-    return result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`);
-  });
-}
+const browser = browserForFile();
+// axe-core checks the page below the site header, which is the shell's.
+const A11Y_SCOPE = { exclude: ['body > header'] };
 
 /** Opens a search address and waits until React has hydrated the search field (typing before that would be lost). */
 async function openSearch(page: Page, path: string): Promise<void> {
@@ -56,7 +42,7 @@ async function settledTitles(page: Page): Promise<string[]> {
 
 describe('the search page in Chromium', () => {
   it('finds a demo material, filters by temperature through the URL, restores searches on Back and takes two labs to Compare', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true });
     const page = await context.newPage();
     const violations = await watchCsp(page);
     const apiCalls: string[] = [];
@@ -107,7 +93,7 @@ describe('the search page in Chromium', () => {
     await page.goForward();
     await expect.poll(() => search(page).get('q')).toBe('sputtered film');
     await expect.poll(() => settledTitles(page)).toContain(ITO.title);
-    expect(await accessibilityProblems(page)).toEqual([]);
+    expect(await accessibilityProblems(page, A11Y_SCOPE)).toEqual([]);
 
     // Each lab's curve from its dataset page into this browser's compare basket, coming back to the results by Back.
     const dois: string[] = [];
@@ -143,7 +129,7 @@ describe('the search page in Chromium', () => {
   });
 
   it('keeps the last results and focus through a slow answer, a refused range and a failed fetch, on a phone', async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await browser().newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     const violations = await watchCsp(page);
     await openSearch(page, '/search?q=sputtered+film');
@@ -194,13 +180,13 @@ describe('the search page in Chromium', () => {
     await expect.poll(() => failed.count()).toBe(0);
     expect(await settledTitles(page)).toContain(COPPER.title);
     expect(search(page).get('tMin')).toBe(String(BG_FILM.fromK + 1));
-    expect(await accessibilityProblems(page)).toEqual([]);
+    expect(await accessibilityProblems(page, A11Y_SCOPE)).toEqual([]);
     expect(violations).toEqual([]);
     await context.close();
   });
 
   it('follows typing after a pause with one history entry per typing, and pages with links that keep the search', async () => {
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     const violations = await watchCsp(page);
     // One result a page: the three published demo versions make three pages.
@@ -246,7 +232,7 @@ describe('the search page in Chromium', () => {
     expect(text).toContain(COPPER.title);
     expect(text).not.toContain(ITO.title);
 
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, javaScriptEnabled: false });
+    const context = await browser().newContext({ viewport: { width: 1280, height: 900 }, javaScriptEnabled: false });
     const page = await context.newPage();
     await page.goto(`${baseUrl}/search?q=sputtered+film`);
     expect(await resultTitles(page)).toEqual(expect.arrayContaining([COPPER.title, ITO.title]));

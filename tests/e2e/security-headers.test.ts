@@ -1,19 +1,13 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import demo from '@/db/seeds/demo-accounts.json';
 import { HttpSession } from '@/tests/support/http-session';
-import { baseUrl, launchBrowser, watchCsp } from '@/tests/support/e2e';
+import { baseUrl, browserForFile, watchCsp } from '@/tests/support/e2e';
 
 const author = demo.accounts.find((a) => a.email.startsWith('ada.'))!;
 const evil = 'https://evil.example.test';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserForFile();
 
 const nonceOf = (csp: string | null) => /'nonce-([^']+)'/.exec(csp ?? '')?.[1];
 
@@ -114,7 +108,7 @@ async function visit(page: Page, path: string): Promise<void> {
 
 describe('Content-Security-Policy in Chromium', () => {
   it('public pages, the API page and sign-in run without a single CSP violation', async () => {
-    const page = await browser.newPage();
+    const page = await browser().newPage();
     const violations = await watchCsp(page);
     for (const path of ['/', '/search', '/groups', '/compare', '/api-docs', '/sign-in']) await visit(page, path);
     await visit(page, '/search');
@@ -128,7 +122,7 @@ describe('Content-Security-Policy in Chromium', () => {
   });
 
   it('signed in, the deposit page and a draft workspace run without a CSP violation', async () => {
-    const page = await browser.newPage();
+    const page = await browser().newPage();
     const violations = await watchCsp(page);
     await visit(page, '/sign-in');
     await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);

@@ -1,21 +1,14 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import demo from '@/db/seeds/demo-accounts.json';
-import { baseUrl, launchBrowser } from '@/tests/support/e2e';
+import { baseUrl, browserForFile } from '@/tests/support/e2e';
 
 const author = demo.accounts.find((a) => a.email.startsWith('ada.'))!;
-let browser: Browser;
 
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = browserForFile();
 
 describe('signing in in Chromium', () => {
   it('the demo author signs in and sees their groups with roles', async () => {
-    const page = await browser.newPage();
+    const page = await browser().newPage();
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
     await page.getByLabel('Password', { exact: true }).fill(demo.password);
@@ -29,7 +22,7 @@ describe('signing in in Chromium', () => {
   });
 
   it('a wrong password shows an error and stays on the sign-in page', async () => {
-    const page = await browser.newPage();
+    const page = await browser().newPage();
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByLabel('E-mail address', { exact: true }).first().fill(author.email);
     await page.getByLabel('Password', { exact: true }).fill('definitely wrong');
