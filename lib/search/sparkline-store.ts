@@ -1,6 +1,7 @@
 // Card sparklines for every indexed version in one flat buffer: 64 points at 16-bit resolution inside each curve's own
 // bounding box. A sparkline is a drawing aid (≈100 px wide), so 1/65535 of the box is far below a pixel, and 100 k
-// versions take 26 MB instead of the ~250 MB that 100 k arrays of [x, y] pairs would.
+// versions take 26 MB instead of the ~250 MB that 100 k arrays of [x, y] pairs would. Points come back rounded to
+// the store's resolution (restore), so a card's JSON carries no digits the store does not hold.
 
 export const SPARKLINE_MAX_POINTS = 64;
 const STEPS = 65535;
@@ -69,9 +70,13 @@ export class SparklineStore {
     const b = slot * 4;
     const x0 = this.bounds[b], x1 = this.bounds[b + 1], y0 = this.bounds[b + 2], y1 = this.bounds[b + 3];
     const base = slot * SPARKLINE_MAX_POINTS * 2;
+    const dx = decimals(x0, x1);
+    const dy = decimals(y0, y1);
+    const sx = 10 ** Math.abs(dx);
+    const sy = 10 ** Math.abs(dy);
     const out: [number, number][] = [];
     for (let i = 0; i < n; i++) {
-      out.push([restore(this.codes[base + 2 * i], x0, x1), restore(this.codes[base + 2 * i + 1], y0, y1)]);
+      out.push([restore(this.codes[base + 2 * i], x0, x1, dx, sx), restore(this.codes[base + 2 * i + 1], y0, y1, dy, sy)]);
     }
     return out;
   }
@@ -86,8 +91,20 @@ function quantise(v: number, lo: number, hi: number): number {
   return hi > lo ? Math.round(((v - lo) / (hi - lo)) * STEPS) : 0;
 }
 
-function restore(code: number, lo: number, hi: number): number {
+/**
+ * Decimal places that resolve a tenth of one step of the box (negative: a power of ten left of the point). A stored
+ * point is known to half a step; printing more digits would only claim precision the store does not hold (and make
+ * every card's JSON longer), while rounding to a tenth of a step keeps the error within 0.55 step.
+ */
+function decimals(lo: number, hi: number): number {
+  return hi > lo ? Math.ceil(Math.log10((10 * STEPS) / (hi - lo))) : 0;
+}
+
+/** `scale` = 10^|places|, exact up to 1e22: dividing or multiplying by it gives the double nearest k·10^−places. */
+function restore(code: number, lo: number, hi: number, places: number, scale: number): number {
   if (code === 0) return lo;
   if (code === STEPS) return hi;
-  return lo + (code / STEPS) * (hi - lo);
+  const v = lo + (code / STEPS) * (hi - lo);
+  if (places > 22 || places < -22) return v;
+  return places >= 0 ? Math.round(v * scale) / scale : Math.round(v / scale) * scale;
 }

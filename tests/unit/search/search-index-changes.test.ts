@@ -115,6 +115,24 @@ describe('add, update, remove', () => {
     expect(stored[2]).toEqual([300, 1.68e-8]);
   });
 
+  it('gives sparkline points back with no more digits than the 16-bit store resolves', () => {
+    const curve = Array.from({ length: 64 }, (_, i) => [2 + (298 * i) / 63 + Math.PI / 1e6, 1.1 + Math.sin(i / 9) / 3] as [number, number]);
+    index.add({ ...byId('a2'), sparkline: curve });
+    const stored = index.get('a2')?.sparkline as [number, number][];
+    const xStep = (curve[63][0] - curve[0][0]) / 65535;
+    const ys = curve.map(([, y]) => y);
+    const yStep = (Math.max(...ys) - Math.min(...ys)) / 65535;
+    stored.forEach(([x, y], i) => {
+      // Within 0.55 of a step: half a step from the store, a twentieth from the printed rounding.
+      expect(Math.abs(x - curve[i][0])).toBeLessThanOrEqual(0.55 * xStep);
+      expect(Math.abs(y - curve[i][1])).toBeLessThanOrEqual(0.55 * yStep);
+      // The box's edges come back exact; inside it, a step of 298 K / 65535 ≈ 0.0045 K is resolved by 4 decimals and
+      // one of y's (span ≈ 0.67) by 6.
+      if (i > 0 && i < 63) expect(String(x).split('.')[1]?.length ?? 0).toBeLessThanOrEqual(4);
+      if (y !== Math.min(...ys) && y !== Math.max(...ys)) expect(String(y).split('.')[1]?.length ?? 0).toBeLessThanOrEqual(6);
+    });
+  });
+
   it('stores a range given high-to-low in order, and ignores one that is not finite', () => {
     index.add({ ...byId('a2'), ranges: { temperatureK: [20, 4], fieldT: [Number.NaN, 1] } });
     expect(index.get('a2')?.ranges).toEqual({ temperatureK: [4, 20] });
