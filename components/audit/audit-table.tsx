@@ -2,6 +2,7 @@ import Link from 'next/link';
 import { LocalDateTime } from '@/components/dataset/local-date-time';
 import { ACTOR_KIND_LABELS, auditActionLabel } from '@/lib/audit/action-labels';
 import type { AuditListEntry, AuditPage } from '@/lib/audit/list-audit';
+import { formatCount } from '@/lib/format/plural';
 
 export type AuditTableProps = { page: AuditPage; path: string; showGroup: boolean };
 
@@ -82,7 +83,7 @@ export function AuditTable({ page, path, showGroup }: AuditTableProps) {
         </table>
       </div>
       <nav aria-label="Audit log pages" className="flex flex-wrap items-center justify-between gap-2 text-sm">
-        <p className="num text-slate-600">Page {page.page} of {page.pageCount} · {page.total} {page.total === 1 ? 'entry' : 'entries'}</p>
+        <p className="num text-slate-600">Page {formatCount(page.page)} of {formatCount(page.pageCount)} · {formatCount(page.total)} {page.total === 1 ? 'entry' : 'entries'}</p>
         <div className="flex gap-2">
           {page.page > 1 && <Link href={pageHref(path, page.query, page.page - 1, showGroup)} rel="prev" className="rounded-md border border-slate-300 bg-white px-3 py-1.5 font-semibold text-slate-800 hover:bg-slate-100">Newer</Link>}
           {page.page < page.pageCount && <Link href={pageHref(path, page.query, page.page + 1, showGroup)} rel="next" className="rounded-md border border-slate-300 bg-white px-3 py-1.5 font-semibold text-slate-800 hover:bg-slate-100">Older</Link>}

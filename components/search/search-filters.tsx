@@ -1,5 +1,6 @@
 import type { FormEvent, MouseEvent } from 'react';
 import type { FieldErrors } from '@/lib/errors';
+import { formatCount } from '@/lib/format/plural';
 import type { FacetBucket, FacetName } from '@/lib/search/types';
 import { facetLabel } from './facet-labels';
 import {
@@ -31,15 +32,18 @@ export type SearchFiltersProps = {
 
 function Facet({ name, buckets, state, onFacet }: { name: FacetName; buckets: FacetBucket[]; state: SearchUrlState; onFacet: SearchFiltersProps['onFacet'] }) {
   if (buckets.length === 0) return null;
+  // Years read best as a calendar, newest first; the other facets come most frequent first, as the API lists them.
+  const shown = name === 'year' ? [...buckets].sort((a, b) => b.value.localeCompare(a.value)) : buckets;
   return (
-    <fieldset className="flex flex-col gap-1">
+    // min-w-0: a fieldset is at least as wide as its content by default, so a long lab name would push past the column.
+    <fieldset className="flex min-w-0 flex-col gap-1">
       <legend className="mb-1 text-sm font-semibold text-slate-900">{FACET_TITLES[name]}</legend>
-      {buckets.map((b) => (
+      {shown.map((b) => (
         <label key={b.value} className="flex items-center gap-2 text-sm text-slate-800">
           <input type="checkbox" name={name} value={b.value} checked={isFacetSelected(state, name, b.value)}
-            onChange={(e) => onFacet(name, b.value, e.target.checked)} className="h-4 w-4 accent-copper-700" />
-          <span className="min-w-0 flex-1 truncate">{facetLabel(name, b)}</span>
-          <span className="tabular-nums text-slate-500">{b.count}</span>
+            onChange={(e) => onFacet(name, b.value, e.target.checked)} className="h-4 w-4 shrink-0 accent-copper-700" />
+          <span className="min-w-0 flex-1 truncate" title={facetLabel(name, b)}>{facetLabel(name, b)}</span>
+          <span className="shrink-0 tabular-nums text-slate-500">{formatCount(b.count)}</span>
         </label>
       ))}
     </fieldset>

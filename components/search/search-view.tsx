@@ -2,7 +2,7 @@
 
 import { useSearchParams } from 'next/navigation';
 import { useEffect, useMemo, useRef, useState, useSyncExternalStore, type FormEvent, type MouseEvent } from 'react';
-import { plural } from '@/lib/format/plural';
+import { formatCount, plural } from '@/lib/format/plural';
 import type { FacetBucket, FacetName, SearchResult } from '@/lib/search/types';
 import { fetchSearchAnswer, knownAnswer, rememberAnswer, subscribeAnswers, type SearchAnswer } from './search-answer';
 import { SearchFilters } from './search-filters';
@@ -231,7 +231,7 @@ export function SearchView({ initial }: SearchViewProps) {
           <section aria-labelledby="results-heading" aria-busy={busy} className="flex min-w-0 flex-col gap-3">
             <div className="flex flex-wrap items-baseline justify-between gap-x-3">
               <h2 id="results-heading" ref={headingRef} tabIndex={-1} className="text-sm text-slate-700 focus:outline-none focus-visible:outline" aria-live="polite">
-                {plural(result.total, 'published version')}{result.total > 0 && ` · page ${result.page} of ${lastPage}`}
+                {plural(result.total, 'published version')}{result.total > 0 && ` · page ${formatCount(result.page)} of ${formatCount(lastPage)}`}
               </h2>
               <p className={`flex items-center gap-1.5 text-xs text-slate-600 ${busy ? 'visible' : 'invisible'}`}>
                 <svg aria-hidden="true" viewBox="0 0 16 16" className="h-3.5 w-3.5 animate-spin text-copper-700 motion-reduce:animate-none">

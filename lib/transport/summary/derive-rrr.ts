@@ -23,12 +23,21 @@ export function deriveRrr(d: Derivation): void {
   const bins = binned(d, temperature.values, y);
   if (bins.x.length < 2) return;
   const result = residualResistivityRatio(bins.x, bins.y);
+  const symbol = rho ? 'ρ' : 'R';
+  // The label names the temperatures whose values entered the ratio: a curve that stops above 4.2 K gives a ratio to
+  // its lowest temperature, which a reader must not mistake for the liquid-helium one.
+  const lowK = result.low.extrapolated ? round(result.low.usedK, 3) : result.low.requestedK;
+  const caveats = [
+    result.low.extrapolated && `the curve does not reach ${result.low.requestedK} K, so its lowest point (${lowK} K) stands in, assuming the residual plateau`,
+    result.high.extrapolated && `${result.high.requestedK} K lies beyond the data; the end segment is extended linearly`,
+  ].filter(Boolean);
   d.derived.push({
     key: 'rrr',
-    label: `RRR = ${rho ? 'ρ' : 'R'}(${result.high.requestedK} K)/${rho ? 'ρ' : 'R'}(${result.low.requestedK} K)`,
+    label: `RRR = ${symbol}(${result.high.requestedK} K)/${symbol}(${lowK} K)`,
     value: round(result.rrr),
     ucum: '1',
-    method: 'ratio of the x-binned curve interpolated linearly at both references (Splett et al., J. Res. NIST 116, 489 (2011))',
+    method: 'ratio of the x-binned curve interpolated linearly at both references (Splett et al., J. Res. NIST 116, 489 (2011))' +
+      (caveats.length ? `; ${caveats.join('; ')}` : ''),
     detail: {
       highK: result.high.requestedK,
       lowK: result.low.requestedK,

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { CU_WIRE, ELEMENTARY_CHARGE_C, FILM, HALL_BAR, bgRatio, cuResistivity } from '../../../fixtures/transport/params';
+import { bytesFromBuffer } from '@/lib/transport/parse';
+import { summariseFile } from '@/lib/transport/summarise-file';
 import { closeTo, derivedValue, meta, summariseFixture } from './helpers';
 
 describe('the fixtures’ generating model (params.ts) is right', () => {
@@ -33,6 +35,20 @@ describe('summariseFile: Cu wire R(T) with metadata', () => {
     expect(rrr?.detail).toMatchObject({ highK: 273, lowK: 4.2, highExtrapolated: false, lowHeld: false, from: 'resistivity' });
     expect(closeTo(rrr?.value ?? 0, expected, 1e-6)).toBe(true);
     expect(expected).toBeGreaterThan(150);
+  });
+
+  it('names the temperature actually used when the curve stops above 4.2 K', async () => {
+    // The same Cu wire ρ(T) model, sampled from 10 K only: ρ(4.2 K) is not in the data, so the lowest point stands in.
+    const temperatures = Array.from({ length: 30 }, (_, i) => 10 + i * 10);
+    const csv = `T (K),rho (Ohm.m)\n${temperatures.map((t) => `${t},${cuResistivity(t).toPrecision(10)}`).join('\n')}\n`;
+    const s = await summariseFile(bytesFromBuffer(Buffer.from(csv)), { fileName: 'from-10K.csv' });
+    const rrr = s.derived.find((d) => d.key === 'rrr');
+    expect(rrr?.label).toBe('RRR = ρ(273 K)/ρ(10 K)');
+    expect(rrr?.method).toContain('does not reach 4.2 K, so its lowest point (10 K) stands in');
+    expect(rrr?.detail).toMatchObject({ lowK: 4.2, lowUsedK: 10, lowHeld: true });
+    // 273 K falls between the 270 K and 280 K points: the ratio uses the linear interpolation between them.
+    const at273 = cuResistivity(270) + 0.3 * (cuResistivity(280) - cuResistivity(270));
+    expect(closeTo(rrr?.value ?? 0, at273 / cuResistivity(10), 1e-6)).toBe(true);
   });
 
   it('builds the quality context from metadata: a 4-pole 300 ms lock-in at 1 K/min lags the sweep', async () => {
