@@ -70,13 +70,11 @@ export class SparklineStore {
     const b = slot * 4;
     const x0 = this.bounds[b], x1 = this.bounds[b + 1], y0 = this.bounds[b + 2], y1 = this.bounds[b + 3];
     const base = slot * SPARKLINE_MAX_POINTS * 2;
-    const dx = decimals(x0, x1);
-    const dy = decimals(y0, y1);
-    const sx = 10 ** Math.abs(dx);
-    const sy = 10 ** Math.abs(dy);
+    const sx = 10 ** decimals(x0, x1);
+    const sy = 10 ** decimals(y0, y1);
     const out: [number, number][] = [];
     for (let i = 0; i < n; i++) {
-      out.push([restore(this.codes[base + 2 * i], x0, x1, dx, sx), restore(this.codes[base + 2 * i + 1], y0, y1, dy, sy)]);
+      out.push([restore(this.codes[base + 2 * i], x0, x1, sx), restore(this.codes[base + 2 * i + 1], y0, y1, sy)]);
     }
     return out;
   }
@@ -92,19 +90,19 @@ function quantise(v: number, lo: number, hi: number): number {
 }
 
 /**
- * Decimal places that resolve a tenth of one step of the box (negative: a power of ten left of the point). A stored
- * point is known to half a step; printing more digits would only claim precision the store does not hold (and make
- * every card's JSON longer), while rounding to a tenth of a step keeps the error within 0.55 step.
+ * Decimal places that resolve a tenth of one step of the box (at least 0: a box wider than 655 350 units is printed in
+ * whole units, finer than needed). A stored point is known to half a step; printing more digits would only claim
+ * precision the store does not hold (and make every card's JSON longer), while rounding to a tenth of a step keeps the
+ * error within 0.55 step.
  */
 function decimals(lo: number, hi: number): number {
-  return hi > lo ? Math.ceil(Math.log10((10 * STEPS) / (hi - lo))) : 0;
+  return hi > lo ? Math.max(0, Math.ceil(Math.log10((10 * STEPS) / (hi - lo)))) : 0;
 }
 
-/** `scale` = 10^|places|, exact up to 1e22: dividing or multiplying by it gives the double nearest k·10^−places. */
-function restore(code: number, lo: number, hi: number, places: number, scale: number): number {
+/** `scale` = 10^places, exact up to 1e22: dividing by it gives the double nearest k·10^−places. */
+function restore(code: number, lo: number, hi: number, scale: number): number {
   if (code === 0) return lo;
   if (code === STEPS) return hi;
   const v = lo + (code / STEPS) * (hi - lo);
-  if (places > 22 || places < -22) return v;
-  return places >= 0 ? Math.round(v * scale) / scale : Math.round(v / scale) * scale;
+  return scale > 1e22 ? v : Math.round(v * scale) / scale;
 }

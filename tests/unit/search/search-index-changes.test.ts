@@ -131,6 +131,14 @@ describe('add, update, remove', () => {
       if (i > 0 && i < 63) expect(String(x).split('.')[1]?.length ?? 0).toBeLessThanOrEqual(4);
       if (y !== Math.min(...ys) && y !== Math.max(...ys)) expect(String(y).split('.')[1]?.length ?? 0).toBeLessThanOrEqual(6);
     });
+    // A box wider than 655 350 units (a field sweep in A/m, say) comes back in whole units.
+    const wide = Array.from({ length: 10 }, (_, i) => [i * 7.9577e5 + 0.123, i] as [number, number]);
+    index.add({ ...byId('a2'), sparkline: wide });
+    const back = index.get('a2')?.sparkline as [number, number][];
+    back.forEach(([x], i) => {
+      expect(Math.abs(x - wide[i][0])).toBeLessThanOrEqual((0.55 * (wide[9][0] - wide[0][0])) / 65535);
+      if (i > 0 && i < 9) expect(Number.isInteger(x)).toBe(true);
+    });
   });
 
   it('stores a range given high-to-low in order, and ignores one that is not finite', () => {
