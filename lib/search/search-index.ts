@@ -124,8 +124,9 @@ export class SearchIndex {
 
   /** Slots matching every term (or all live ones), narrowed to latest versions and the range filters. */
   private candidates(terms: string[], latestOnly: boolean, ranges: SearchQuery | null) {
+    const only = latestOnly ? this.table.latest : undefined;
     const found = terms.length
-      ? this.text.match(terms, (term) => this.facetWords.slotsFor(term, this.table.capacity, this.changes), latestOnly ? this.table.latest : undefined)
+      ? this.text.match(terms, (term) => this.facetWords.slotsFor(term, this.table.capacity, this.changes, only), only)
       : this.everySlot(latestOnly);
     let { length } = found;
     if (ranges) length = this.ranges.narrow(ranges, found.slots, length);

@@ -80,10 +80,15 @@ describe('add, update, remove', () => {
     expect(ids({ q: 'manganite' })).toEqual(['b2v3']);
     expect(ids({ q: 'manganite', allVersions: true })).toEqual(['b2v3', 'b2v2', 'b2v1']);
     expect(ids({})[0]).toBe('b2v3');
+    // A group's name is matched through the facet words (kept per query kind until the next change): same rule.
+    const tidewater = (allVersions: boolean) => ids({ q: 'tidewater', allVersions }).filter((id) => id.startsWith('b2'));
+    expect(tidewater(false)).toEqual(['b2v3']);
+    expect(tidewater(true)).toEqual(['b2v3', 'b2v2', 'b2v1']);
     // v3 withdrawn: v2 becomes latest again.
     index.remove('b2v3');
     index.update({ ...byId('b2v2'), isLatest: true });
     expect(ids({ q: 'manganite' })).toEqual(['b2v2']);
+    expect(tidewater(false)).toEqual(['b2v2']);
   });
 
   it('keeps the newest-first order right through later additions and removals', () => {
