@@ -1,7 +1,7 @@
 import 'server-only';
 import { findVersionRow } from '@/lib/datasets/repo-versions';
 import { log } from '@/lib/log';
-import type { OutboxHandlers } from '@/lib/outbox/process-outbox';
+import { JobAbandoned, type OutboxHandlers } from '@/lib/outbox/process-outbox';
 import { DEFAULT_LEASE_MS, renewClaim, type OutboxRow } from '@/lib/outbox/repo';
 import { defaultStore, objectExists, type ObjectStore } from '@/lib/storage/objects';
 import { buildPackageIntoCache } from './build-cached-package';
@@ -82,7 +82,24 @@ export async function runPackageBuild(payload: unknown, row: Pick<OutboxRow, 'id
   }
 }
 
+/**
+ * Tries of one build before it is given up: about 20 minutes with the outbox's backoff (10 s doubling, at most 10 min).
+ * A cached copy only spares storage and CPU, so a build that keeps failing is closed rather than retried forever;
+ * downloads stream meanwhile, and the next download queues a fresh build.
+ */
+export const MAX_BUILD_TRIES = 8;
+
 /** The outbox handler of cache builds, run by scripts/worker.ts in a loop of its own (a build may take minutes). */
 export function packageOutboxHandlers(options: PackageBuildOptions = {}): OutboxHandlers {
-  return { [PACKAGE_BUILD_TOPIC]: async (payload, row) => void (await runPackageBuild(payload, row, options)) };
+  return {
+    [PACKAGE_BUILD_TOPIC]: async (payload, row) => {
+      try {
+        await runPackageBuild(payload, row, options);
+      } catch (error) {
+        if (row.attempts < MAX_BUILD_TRIES) throw error;
+        const message = error instanceof Error ? error.message : String(error);
+        throw new JobAbandoned(`given up after ${row.attempts} tries; the next download queues a new build. Last error: ${message}`);
+      }
+    },
+  };
 }

@@ -6,11 +6,17 @@ import { publishingOutboxHandlers } from '@/lib/publishing/outbox-handlers';
 import { reviewOutboxHandlers } from '@/lib/review/outbox-handlers';
 import { searchOutboxHandlers } from '@/lib/search/search-changed';
 import { retryDelayMs } from './backoff';
-import { claimDue, claimFresh, markFailed, markProcessed, type OutboxRow } from './repo';
+import { claimDue, claimFresh, markAbandoned, markFailed, markProcessed, type OutboxRow } from './repo';
 
 export type OutboxHandler = (payload: unknown, row: OutboxRow) => Promise<void>;
 export type OutboxHandlers = Readonly<Record<string, OutboxHandler>>;
 export type OutboxCounts = { claimed: number; done: number; failed: number };
+
+/**
+ * Thrown by a handler for a job that must not be tried again (it has failed for long enough, or can never succeed):
+ * the job is closed with the message in last_error instead of being scheduled for another try.
+ */
+export class JobAbandoned extends Error {}
 
 /** The jobs this app knows how to do; `doi` swaps the DOI client (e.g. another agency endpoint). */
 export function defaultOutboxHandlers(options: { doi?: DoiClient } = {}): OutboxHandlers {
@@ -32,6 +38,11 @@ async function runClaimed(row: OutboxRow, handlers: OutboxHandlers): Promise<boo
     return true;
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
+    if (error instanceof JobAbandoned) {
+      await markAbandoned(row.id, message);
+      log('error', 'outbox job abandoned', { id: row.id, topic: row.topic, attempts: row.attempts, error: message });
+      return false;
+    }
     const delay = retryDelayMs(row.attempts);
     await markFailed(row.id, message, delay);
     log('warn', 'outbox job failed; will retry', { id: row.id, topic: row.topic, attempts: row.attempts, retryInMs: delay, error: message });

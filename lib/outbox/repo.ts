@@ -87,6 +87,12 @@ export async function renewClaim(id: number, leaseMs = DEFAULT_LEASE_MS): Promis
   return (await db()('outbox').where('id', id).whereNull('processed_at').update({ next_attempt_at: inFuture(leaseMs) })) === 1;
 }
 
+/** Closes a job that will not be tried again, keeping why in last_error. */
+export async function markAbandoned(id: number, error: string): Promise<void> {
+  await db()('outbox').where('id', id).whereNull('processed_at')
+    .update({ processed_at: db().raw('UTC_TIMESTAMP()'), last_error: error.slice(0, 4000), next_attempt_at: null });
+}
+
 /** Records a failed try and when to try again. */
 export async function markFailed(id: number, error: string, retryInMs: number): Promise<void> {
   await db()('outbox').where('id', id).whereNull('processed_at').update({ last_error: error.slice(0, 4000), next_attempt_at: inFuture(retryInMs) });

@@ -1,8 +1,8 @@
 // The cached copy of a published package, against the running MariaDB and s3rver: the first download streams and
 // queues one outbox build job (one per cache key, however many downloads come first); the worker's handler builds the
 // copy, a valid bag (lib/bagit verifyBag) byte for byte what the first client got; the next download gets 302 to it.
-// A build that fails part-way leaves nothing under the key, downloads keep streaming, and the outbox retries it. A
-// stopped build reads storage no further.
+// A build that fails part-way leaves nothing under the key, downloads keep streaming, and the outbox retries it, up to
+// MAX_BUILD_TRIES tries. A stopped build reads storage no further.
 import { createHash, randomBytes } from 'node:crypto';
 import { mkdtempSync, rmSync } from 'node:fs';
 import type { IncomingMessage } from 'node:http';
@@ -15,7 +15,7 @@ import { db } from '@/lib/db';
 import { buildPackageIntoCache } from '@/lib/downloads/build-cached-package';
 import { downloadPackage, type PackageReply } from '@/lib/downloads/download-package';
 import { loadPackageInput } from '@/lib/downloads/load-package-input';
-import { buildHoldMs, packageOutboxHandlers, PACKAGE_BUILD_TOPIC, runPackageBuild } from '@/lib/downloads/package-build-job';
+import { buildHoldMs, MAX_BUILD_TRIES, packageOutboxHandlers, PACKAGE_BUILD_TOPIC, runPackageBuild } from '@/lib/downloads/package-build-job';
 import { PACKAGE_URL_TTL_S } from '@/lib/downloads/package-cache';
 import { findVersionRow } from '@/lib/datasets/repo-versions';
 import { processOutboxOnce, tryOutboxJobNow } from '@/lib/outbox/process-outbox';
@@ -179,6 +179,46 @@ describe('a cache build that fails', () => {
     expect(await objectExists(defaultStore(), key)).toBe(true);
     expect((await downloadPackage({ versionId: made.versionId, downloader: anonymous, request: request(), requestId: 'failing-build-3' })).status).toBe(302);
   }, 90_000);
+});
+
+describe('a cache build that keeps failing', () => {
+  it('is closed after MAX_BUILD_TRIES tries with the reason kept, and the next download queues a new build', async () => {
+    const made = await makeVersion(lab, { state: 'published', files: [{ name: 'rxx.csv', bytes: `${RXX}# run ${randomBytes(4).toString('hex')}\n` }] });
+    const download = () => downloadPackage({ versionId: made.versionId, downloader: anonymous, request: request(), requestId: 'given-up' });
+    const first = await download();
+    await collect(streamOf(first));
+    const file = made.files[0]!;
+    await deleteObjects(defaultStore(), [file.storageKey]); // every build now fails
+    const jobId = first.buildJobId!;
+    const handlers = packageOutboxHandlers();
+
+    // Each try is run here, or by the stack's worker if it comes first: wait for the row to show the try's outcome.
+    const tryUntil = async (done: (row: Awaited<ReturnType<typeof findOutboxRow>>) => boolean) => {
+      await expect.poll(async () => {
+        await processOutboxOnce(handlers, { limit: 50 });
+        return done(await findOutboxRow(jobId));
+      }, { timeout: 30_000, interval: 300 }).toBe(true);
+    };
+    // One try short of the limit: still scheduled again.
+    await db()('outbox').where('id', jobId).update({ attempts: MAX_BUILD_TRIES - 2, next_attempt_at: null, last_error: null });
+    await tryUntil((row) => row?.lastError != null);
+    expect(await findOutboxRow(jobId)).toMatchObject({ attempts: MAX_BUILD_TRIES - 1, processedAt: null, lastError: `object ${file.storageKey} does not exist` });
+    // The last try: closed, with why.
+    await db()('outbox').where('id', jobId).update({ next_attempt_at: null });
+    await tryUntil((row) => row?.processedAt != null);
+    const closed = (await findOutboxRow(jobId))!;
+    expect(closed).toMatchObject({ attempts: MAX_BUILD_TRIES, processedAt: expect.any(Date), nextAttemptAt: null });
+    expect(closed.lastError).toBe(`given up after ${MAX_BUILD_TRIES} tries; the next download queues a new build. Last error: object ${file.storageKey} does not exist`);
+    expect(await objectExists(defaultStore(), first.cacheKey!)).toBe(false);
+
+    // The file is back: the next download streams and queues a fresh build.
+    await putObject(defaultStore(), file.storageKey, file.bytes);
+    const next = await download();
+    expect(next.status).toBe(200);
+    await collect(streamOf(next));
+    expect(next.buildJobId).toBeDefined();
+    expect(next.buildJobId).not.toBe(jobId);
+  }, 60_000);
 });
 
 describe('a cache build that is stopped', () => {
