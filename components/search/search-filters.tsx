@@ -87,7 +87,7 @@ export function SearchFilters({ state, ranges, facets, fieldErrors = {}, clearHr
         {state.sort && <input type="hidden" name="sort" value={state.sort} />}
         {state.rest.map(([k, v], i) => <input key={`${k}-${i}`} type="hidden" name={k} value={v} />)}
         {URL_FACETS.map((name) => <Facet key={name} name={name} buckets={facets[name] ?? []} state={state} onFacet={on.onFacet} />)}
-        <fieldset className="flex flex-col gap-2">
+        <fieldset className="flex min-w-0 flex-col gap-2">
           <legend className="mb-1 text-sm font-semibold text-slate-900">Ranges the curves cover</legend>
           <div className="grid grid-cols-2 gap-2">
             {range('tMin', 'T from (K)')}

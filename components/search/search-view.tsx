@@ -220,8 +220,8 @@ export function SearchView({ initial }: SearchViewProps) {
         </div>
       )}
 
-      <div className="grid gap-6 lg:grid-cols-[16rem_minmax(0,1fr)] lg:gap-8">
-        <aside>
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-[16rem_minmax(0,1fr)] lg:gap-8">
+        <aside className="min-w-0">
           <SearchFilters state={state} ranges={draftRanges} facets={result?.facets ?? NO_FACETS} fieldErrors={problem?.fieldErrors}
             clearHref={searchHref(withoutFilters(state))} onFacet={(name, value, on) => deliberate(withFacet(current(), name, value, on))}
             onRange={onRange} onRangeBlur={endTyping} onRangeMode={(on) => deliberate(withRangeMode(current(), on))}
