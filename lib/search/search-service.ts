@@ -95,8 +95,13 @@ async function current(): Promise<State> {
     throw error;
   });
   const state = await holder.ohmsteadSearch;
-  if (!holder.ohmsteadSearchCatchUp && !mayBeBehind(state)) return state;
-  // One catch-up at a time per instance; concurrent requests wait for it rather than each re-reading the log.
+  if (!mayBeBehind(state)) return state;
+  // One catch-up at a time per instance; concurrent requests wait for it rather than each re-reading the log. One that
+  // started before this instance's latest commit may have missed it: then another follows.
+  if (holder.ohmsteadSearchCatchUp) {
+    await holder.ohmsteadSearchCatchUp;
+    if (!mayBeBehind(state)) return state;
+  }
   holder.ohmsteadSearchCatchUp ??= catchUp(state).finally(() => {
     holder.ohmsteadSearchCatchUp = undefined;
   });
