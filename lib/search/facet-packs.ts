@@ -17,6 +17,9 @@ export class FacetPacks {
   private capacity = 0;
   private dirty = new Uint8Array(0);
   private dirtySlots: number[] = [];
+  // Reused by count(): a query's histogram and its failure-class table (no fresh typed arrays per query).
+  private histogram = new Int32Array(0);
+  private readonly classOf = new Int8Array(256);
 
   /** `columns` in FACET_NAMES order (bit f of a failure mask is columns[f]). */
   constructor(private readonly columns: readonly FacetColumn[]) {
@@ -63,7 +66,7 @@ export class FacetPacks {
   count(pack: Pack, slots: Int32Array, length: number, fail: Uint8Array, activeMask: number, counts: Int32Array[]): void {
     const { members, size, codes } = pack;
     // Histogram row per class: 0 = fails nothing; 1 + k = fails only the k-th filtering member.
-    const classOf = new Int8Array(256).fill(-1);
+    const classOf = this.classOf.fill(-1);
     classOf[0] = 0;
     let rows = 1;
     const rowOf = members.map((m) => {
@@ -71,7 +74,8 @@ export class FacetPacks {
       classOf[1 << m.f] = rows;
       return rows++;
     });
-    const histogram = new Int32Array(rows * size);
+    if (this.histogram.length < rows * size) this.histogram = new Int32Array(rows * size);
+    const histogram = this.histogram.fill(0, 0, rows * size);
     if (activeMask === 0) {
       for (let i = 0; i < length; i++) histogram[codes[slots[i]]]++;
     } else {
