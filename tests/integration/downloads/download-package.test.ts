@@ -2,35 +2,21 @@
 // that stops storage reads, a missing object that breaks the stream and is audited, and an anonymous copy with no
 // names. The cached copy of published packages (built by the worker, then a 302) is in package-cache-build.test.ts.
 import { randomBytes } from 'node:crypto';
-import { mkdtempSync, rmSync } from 'node:fs';
 import type { IncomingMessage } from 'node:http';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
 import type { Readable } from 'node:stream';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { verifyBag } from '@/lib/bagit/verify-bag';
 import { db } from '@/lib/db';
-import { downloadPackage, type PackageReply } from '@/lib/downloads/download-package';
+import { downloadPackage } from '@/lib/downloads/download-package';
 import { PACKAGE_BUILD_TOPIC } from '@/lib/downloads/package-build-job';
 import { listOutboxRows } from '@/lib/outbox/repo';
 import { ObjectMissingError, defaultStore, listObjects, objectExists, storeAt, type ObjectStore } from '@/lib/storage/objects';
-import { anonymous, closeDb, collect, dropDownloadLabs, identifying, makeDownloadLab, makeVersion, MiB, request, reviewerLink, RXX, saveZip, zipEntries, type DownloadLab } from './fixtures';
+import { anonymous, collect, downloadLabForFile, identifying, makeVersion, MiB, request, reviewerLink, RXX, saveZip, streamOf, zipEntries, type DownloadLab } from './fixtures';
 
 let lab: DownloadLab;
-const scratch = mkdtempSync(path.join(tmpdir(), 'ohm-dl-it-'));
+const scratch = downloadLabForFile('ohm-dl-it-', (made) => (lab = made));
 const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 
-beforeAll(async () => {
-  lab = await makeDownloadLab();
-});
-afterAll(async () => {
-  await dropDownloadLabs();
-  await closeDb();
-  rmSync(scratch, { recursive: true, force: true });
-});
-
-
-const streamOf = (reply: PackageReply) => reply.body as ReadableStream<Uint8Array>;
 
 /** A store on its own client that hands every GetObject body it opens to `seen` (to watch their sockets). */
 function watchedStore(seen: Readable[]): ObjectStore {

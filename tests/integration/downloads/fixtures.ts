@@ -1,10 +1,13 @@
 // An invented lab with versions in each state, written straight to MariaDB, and their files put into the running
 // s3rver under one unique prefix. Everything made here is removed by dropDownloadLabs().
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
 import path from 'node:path';
+import { afterAll, beforeAll } from 'vitest';
 import yauzl from 'yauzl';
 import { db } from '@/lib/db';
+import type { PackageReply } from '@/lib/downloads/download-package';
 import { PACKAGE_BUILD_TOPIC } from '@/lib/downloads/repo-package-builds';
 import { createReviewerLink } from '@/lib/review/create-reviewer-link';
 import { resolveReviewerLink, type ResolvedLink } from '@/lib/review/resolve-reviewer-link';
@@ -170,6 +173,26 @@ export async function dropDownloadLabs(): Promise<void> {
   for (const sha of blobs) if (!(await db()('files').where('sha256', sha).first('id'))) await db()('blobs').where('sha256', sha).delete();
   blobs.clear();
   await deletePrefix(defaultStore(), prefix);
+}
+
+/** A streamed package reply's body. */
+export const streamOf = (reply: PackageReply) => reply.body as ReadableStream<Uint8Array>;
+
+/**
+ * The hooks of a package test file: a download lab made before its tests (handed to `onLab`), and after them every
+ * lab removed, the database closed and the scratch folder deleted. Returns the scratch folder (made now).
+ */
+export function downloadLabForFile(scratchPrefix: string, onLab: (lab: DownloadLab) => void): string {
+  const scratch = mkdtempSync(path.join(tmpdir(), scratchPrefix));
+  beforeAll(async () => {
+    onLab(await makeDownloadLab());
+  });
+  afterAll(async () => {
+    await dropDownloadLabs();
+    await closeDb();
+    rmSync(scratch, { recursive: true, force: true });
+  });
+  return scratch;
 }
 
 export async function closeDb(): Promise<void> {

@@ -4,16 +4,13 @@
 // A build that fails part-way leaves nothing under the key, downloads keep streaming, and the outbox retries it, up to
 // MAX_BUILD_TRIES tries. A stopped build reads storage no further.
 import { createHash, randomBytes } from 'node:crypto';
-import { mkdtempSync, rmSync } from 'node:fs';
 import type { IncomingMessage } from 'node:http';
-import { tmpdir } from 'node:os';
-import path from 'node:path';
 import type { Readable } from 'node:stream';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { verifyBag } from '@/lib/bagit/verify-bag';
 import { db } from '@/lib/db';
 import { buildPackageIntoCache } from '@/lib/downloads/build-cached-package';
-import { downloadPackage, type PackageReply } from '@/lib/downloads/download-package';
+import { downloadPackage } from '@/lib/downloads/download-package';
 import { loadPackageInput } from '@/lib/downloads/load-package-input';
 import { buildHoldMs, MAX_BUILD_TRIES, packageOutboxHandlers, PACKAGE_BUILD_TOPIC, runPackageBuild } from '@/lib/downloads/package-build-job';
 import { PACKAGE_URL_TTL_S } from '@/lib/downloads/package-cache';
@@ -22,23 +19,12 @@ import { processOutboxOnce, tryOutboxJobNow } from '@/lib/outbox/process-outbox'
 import { findOutboxRow, listOutboxRows } from '@/lib/outbox/repo';
 import { defaultStore, deleteObjects, listObjects, objectExists, readObject, storeAt, type ObjectStore } from '@/lib/storage/objects';
 import { putObject } from '@/lib/storage/put-object';
-import { anonymous, closeDb, collect, dropDownloadLabs, makeDownloadLab, makeVersion, MiB, request, RXX, saveZip, zipEntries, type DownloadLab, type StoredFile } from './fixtures';
+import { anonymous, collect, downloadLabForFile, makeVersion, MiB, request, RXX, saveZip, streamOf, zipEntries, type DownloadLab, type StoredFile } from './fixtures';
 
 let lab: DownloadLab;
-const scratch = mkdtempSync(path.join(tmpdir(), 'ohm-cache-it-'));
+const scratch = downloadLabForFile('ohm-cache-it-', (made) => (lab = made));
 const sha256Hex = (bytes: Buffer) => createHash('sha256').update(bytes).digest('hex');
 
-beforeAll(async () => {
-  lab = await makeDownloadLab();
-});
-afterAll(async () => {
-  await dropDownloadLabs();
-  await closeDb();
-  rmSync(scratch, { recursive: true, force: true });
-});
-
-
-const streamOf = (reply: PackageReply) => reply.body as ReadableStream<Uint8Array>;
 
 async function storedBytes(key: string): Promise<Buffer> {
   const chunks: Uint8Array[] = [];
