@@ -11,13 +11,13 @@ const WORDY_FACETS: FacetName[] = ['quantity', 'method', 'excitation', 'group'];
 
 type Vocabulary = { size: number; codesOf: Map<string, number[]> };
 
-// Slot lists of recently matched facet words, kept until the index changes (bounded to ~8 MB of slot numbers).
+// Slot lists of recently matched facet words, kept until the index changes (bounded to 2 M slot numbers, ~16 MB as plain arrays).
 const CACHE_SLOTS = 2_000_000;
 
 export class FacetWords {
   private readonly vocabularies = new Map<FacetName, Vocabulary>();
   private scratch = new Int32Array(0);
-  private readonly cache = new Map<string, Int32Array>();
+  private readonly cache = new Map<string, number[]>();
   private cachedSlots = 0;
   private cachedAt = -1;
 
@@ -29,13 +29,13 @@ export class FacetWords {
    * `changes` is the index's change counter, bumped by every change to the facets or to `only`: lists found since the
    * last change are reused.
    */
-  slotsFor(term: string, upTo: number, changes: number, only?: Uint8Array): Int32Array[] {
+  slotsFor(term: string, upTo: number, changes: number, only?: Uint8Array): number[][] {
     if (changes !== this.cachedAt) {
       this.cache.clear();
       this.cachedSlots = 0;
       this.cachedAt = changes;
     }
-    const found: Int32Array[] = [];
+    const found: number[][] = [];
     for (const name of WORDY_FACETS) {
       const column = this.facets.columns[name];
       const codes = this.vocabulary(name, column).codesOf.get(term);
@@ -48,7 +48,7 @@ export class FacetWords {
         if (this.scratch.length < upTo) this.scratch = new Int32Array(upTo);
         let length = column.slotsWith(flags, upTo, this.scratch);
         if (only) length = keepSet(this.scratch, length, only);
-        slots = this.scratch.slice(0, length);
+        slots = Array.from(this.scratch.subarray(0, length)); // plain, like FlexSearch's postings (text-match.ts)
         if (this.cachedSlots + slots.length > CACHE_SLOTS) {
           this.cache.clear();
           this.cachedSlots = 0;

@@ -155,7 +155,7 @@ export class TextMatcher {
    */
   match(
     terms: readonly string[],
-    more?: (term: string) => Int32Array[],
+    more?: (term: string) => readonly number[][],
     only?: Uint8Array,
   ): { slots: Int32Array; length: number; score: Float64Array } {
     if (++this.gen === 1 << 27) {
@@ -177,8 +177,8 @@ export class TextMatcher {
       }
       // Facet words (quantities, methods, group) count like a word in the middle of the head field.
       for (const ids of more?.(terms[t]) ?? []) {
-        if (t === 0) this.firstTyped(ids, FACET_WORD_GAIN, only);
-        else this.nextTyped(ids, t, FACET_WORD_GAIN);
+        if (t === 0) this.firstArray(ids, FACET_WORD_GAIN, only);
+        else this.nextArray(ids, t, FACET_WORD_GAIN);
       }
     }
     const { mark, found } = this;
@@ -190,8 +190,8 @@ export class TextMatcher {
   }
 
   // The first term's slots join (those `only` allows; met again in another field or bucket, they gain again); a later
-  // term's slots count only if they have every earlier term. Four copies of two loops, so each stays monomorphic (plain arrays from
-  // FlexSearch, Int32Arrays from facet words).
+  // term's slots count only if they have every earlier term. FlexSearch's postings and the facet words' lists are both
+  // plain arrays, so each loop sees one array kind.
   private firstArray(ids: number[], gain: number, only: Uint8Array | undefined): void {
     const { mark, score, found } = this;
     const one = (this.gen << 4) | 1;
@@ -208,42 +208,10 @@ export class TextMatcher {
     this.length = length;
   }
 
-  private firstTyped(ids: Int32Array, gain: number, only: Uint8Array | undefined): void {
-    const { mark, score, found } = this;
-    const one = (this.gen << 4) | 1;
-    let length = this.length;
-    for (let r = 0; r < ids.length; r++) {
-      const s = ids[r];
-      if (mark[s] === one) score[s] += gain;
-      else if (!only || only[s] === 1) {
-        mark[s] = one;
-        score[s] = gain;
-        found[length++] = s;
-      }
-    }
-    this.length = length;
-  }
-
-  // nextArray and nextTyped are the same loop on purpose: one function per array kind keeps each call site
-  // monomorphic in V8, which matters in this loop that every query runs (not re-measured against a shared version).
   private nextArray(ids: number[], t: number, gain: number): void {
     const { mark, score } = this;
     const before = (this.gen << 4) | t; // has terms 0 … t − 1
     const after = before + 1; // has term t too
-    for (let r = 0; r < ids.length; r++) {
-      const s = ids[r];
-      const m = mark[s];
-      if (m === before) {
-        mark[s] = after;
-        score[s] += gain;
-      } else if (m === after) score[s] += gain;
-    }
-  }
-
-  private nextTyped(ids: Int32Array, t: number, gain: number): void {
-    const { mark, score } = this;
-    const before = (this.gen << 4) | t;
-    const after = before + 1;
     for (let r = 0; r < ids.length; r++) {
       const s = ids[r];
       const m = mark[s];
