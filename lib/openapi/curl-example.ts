@@ -1,5 +1,6 @@
 // A curl command for one operation of the built document: the token (or session cookie) header, path parameters as
 // shell variables, the documented query example, and the request body example.
+import { shellQuote } from '@/lib/format/shell-quote';
 import { API_BASE_PATH, SESSION_COOKIE } from './build-openapi';
 import { deref } from './describe-schema';
 import type { JsonObject } from './embed-schemas';
@@ -7,8 +8,7 @@ import type { JsonObject } from './embed-schemas';
 /** versionId → $VERSION_ID */
 export const shellVariable = (param: string) => `$${param.replace(/([a-z0-9])([A-Z])/g, '$1_$2').toUpperCase()}`;
 
-/** Single-quotes a word for POSIX shells ('it'\''s'). */
-export const shellQuote = (text: string) => `'${text.replace(/'/g, `'\\''`)}'`;
+export { shellQuote };
 
 type Operation = JsonObject & { security?: JsonObject[]; parameters?: JsonObject[]; requestBody?: JsonObject; responses?: Record<string, JsonObject> };
 

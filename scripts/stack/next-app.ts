@@ -91,7 +91,8 @@ export async function startApp(stack: Stack, opts: { tee?: NodeJS.WritableStream
   };
   stack.adopt(service);
   if (child.pid !== undefined) writePid(stack.layout, 'app', child.pid);
-  const probe = `http://${host === 'localhost' ? 'localhost' : '127.0.0.1'}:${port}/`;
+  // The liveness route: answers as soon as the server does, without rendering a page or reading the database.
+  const probe = `http://${host === 'localhost' ? 'localhost' : '127.0.0.1'}:${port}/api/health/live`;
   try {
     await waitUntilReady(() => httpResponds(probe), { service: 'app (next start)', child, logFile, timeoutMs: 60_000, intervalMs: 200 });
   } catch (error) {
