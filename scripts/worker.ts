@@ -82,7 +82,7 @@ async function loop(): Promise<void> {
 
 // Cache builds of packages (lib/downloads/package-build-job.ts) are outbox jobs too, but one may take minutes: they run
 // one at a time in a loop of their own, so mail, DOIs and analysis never wait for them. Stopping aborts a running
-// build (nothing is stored; the outbox retries it).
+// build (nothing is stored; the job is given back untried, for the next worker).
 async function packageLoop(): Promise<void> {
   const handlers = packageOutboxHandlers({ signal: stopping.signal });
   let failures = 0;

@@ -1,7 +1,7 @@
 import 'server-only';
 import { findVersionRow } from '@/lib/datasets/repo-versions';
 import { log } from '@/lib/log';
-import { JobAbandoned, type OutboxHandlers } from '@/lib/outbox/process-outbox';
+import { JobAbandoned, JobInterrupted, type OutboxHandlers } from '@/lib/outbox/process-outbox';
 import { DEFAULT_LEASE_MS, renewClaim, type OutboxRow } from '@/lib/outbox/repo';
 import { defaultStore, objectExists, type ObjectStore } from '@/lib/storage/objects';
 import { buildPackageIntoCache } from './build-cached-package';
@@ -40,7 +40,8 @@ function parsePayload(payload: unknown): PackageBuildPayload {
   const p = (payload ?? {}) as Record<string, unknown>;
   const ok = typeof p.versionId === 'string' && typeof p.cacheKey === 'string' && (p.compression === 'store' || p.compression === 'deflate')
     && typeof p.baggingDate === 'string' && !Number.isNaN(Date.parse(p.baggingDate));
-  if (!ok) throw new Error(`${PACKAGE_BUILD_TOPIC} payload needs versionId, cacheKey, compression and baggingDate`);
+  // Retrying cannot mend a payload: close the job at once.
+  if (!ok) throw new JobAbandoned(`${PACKAGE_BUILD_TOPIC} payload needs versionId, cacheKey, compression and baggingDate`);
   return p as PackageBuildPayload;
 }
 
@@ -96,7 +97,9 @@ export function packageOutboxHandlers(options: PackageBuildOptions = {}): Outbox
       try {
         await runPackageBuild(payload, row, options);
       } catch (error) {
-        if (row.attempts < MAX_BUILD_TRIES) throw error;
+        // The worker stopping (a deploy, say) is no fault of the build: give the job back untried.
+        if (options.signal?.aborted) throw new JobInterrupted('the worker stopped during the build', { cause: error });
+        if (row.attempts < MAX_BUILD_TRIES || error instanceof JobAbandoned) throw error;
         const message = error instanceof Error ? error.message : String(error);
         throw new JobAbandoned(`given up after ${row.attempts} tries; the next download queues a new build. Last error: ${message}`);
       }

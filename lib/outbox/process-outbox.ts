@@ -6,7 +6,7 @@ import { publishingOutboxHandlers } from '@/lib/publishing/outbox-handlers';
 import { reviewOutboxHandlers } from '@/lib/review/outbox-handlers';
 import { searchOutboxHandlers } from '@/lib/search/search-changed';
 import { retryDelayMs } from './backoff';
-import { claimDue, claimFresh, markAbandoned, markFailed, markProcessed, type OutboxRow } from './repo';
+import { claimDue, claimFresh, markAbandoned, markFailed, markProcessed, releaseClaim, type OutboxRow } from './repo';
 
 export type OutboxHandler = (payload: unknown, row: OutboxRow) => Promise<void>;
 export type OutboxHandlers = Readonly<Record<string, OutboxHandler>>;
@@ -17,6 +17,12 @@ export type OutboxCounts = { claimed: number; done: number; failed: number };
  * the job is closed with the message in last_error instead of being scheduled for another try.
  */
 export class JobAbandoned extends Error {}
+
+/**
+ * Thrown by a handler whose try was cut short by its own process stopping (not by the job): the job is given back
+ * untried, due again at once for the next worker, and the try does not count against any limit.
+ */
+export class JobInterrupted extends Error {}
 
 /** The jobs this app knows how to do; `doi` swaps the DOI client (e.g. another agency endpoint). */
 export function defaultOutboxHandlers(options: { doi?: DoiClient } = {}): OutboxHandlers {
@@ -38,6 +44,11 @@ async function runClaimed(row: OutboxRow, handlers: OutboxHandlers): Promise<boo
     return true;
   } catch (error) {
     const message = error instanceof Error ? error.message : String(error);
+    if (error instanceof JobInterrupted) {
+      await releaseClaim(row.id);
+      log('info', 'outbox job given back: this process is stopping', { id: row.id, topic: row.topic });
+      return false;
+    }
     if (error instanceof JobAbandoned) {
       await markAbandoned(row.id, message);
       log('error', 'outbox job abandoned', { id: row.id, topic: row.topic, attempts: row.attempts, error: message });

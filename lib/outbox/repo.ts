@@ -87,6 +87,12 @@ export async function renewClaim(id: number, leaseMs = DEFAULT_LEASE_MS): Promis
   return (await db()('outbox').where('id', id).whereNull('processed_at').update({ next_attempt_at: inFuture(leaseMs) })) === 1;
 }
 
+/** Gives a claimed job back untried (its process is stopping): due again at once, the try not counted. */
+export async function releaseClaim(id: number): Promise<void> {
+  await db()('outbox').where('id', id).whereNull('processed_at')
+    .update({ attempts: db().raw('GREATEST(attempts - 1, 0)'), next_attempt_at: null });
+}
+
 /** Closes a job that will not be tried again, keeping why in last_error. */
 export async function markAbandoned(id: number, error: string): Promise<void> {
   await db()('outbox').where('id', id).whereNull('processed_at')

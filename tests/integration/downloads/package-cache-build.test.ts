@@ -207,6 +207,20 @@ describe('a cache build that keeps failing', () => {
   }, 60_000);
 });
 
+describe('a cache build whose worker stops', () => {
+  it('gives the job back untried, due at once, instead of counting a failed try', async () => {
+    const made = await makeVersion(lab, { state: 'published', files: [{ name: 'rxx.csv', bytes: `${RXX}# run ${randomBytes(4).toString('hex')}\n` }] });
+    const first = await downloadPackage({ versionId: made.versionId, downloader: anonymous, request: request(), requestId: 'worker-stops' });
+    await collect(streamOf(first));
+    const stopped = new AbortController();
+    stopped.abort(); // the worker is stopping while this build runs
+    // The fresh job is held back from workers, so this process takes the first try.
+    expect(await tryOutboxJobNow(first.buildJobId!, packageOutboxHandlers({ signal: stopped.signal }))).toBe('failed');
+    expect(await findOutboxRow(first.buildJobId!)).toMatchObject({ attempts: 0, processedAt: null, nextAttemptAt: null, lastError: null });
+    expect(await objectExists(defaultStore(), first.cacheKey!)).toBe(false);
+  }, 30_000);
+});
+
 describe('a cache build that is stopped', () => {
   it('stops reading storage at once and stores nothing', async () => {
     const made = await makeVersion(lab, {
