@@ -1,5 +1,5 @@
 // Curve helpers for the summary: typed arrays in, small number[] curves out (physics takes plain arrays).
-import { pushBucket, type M4 } from './preview';
+import { bucketEnd, pushBucket, type M4 } from './preview';
 
 export type XY = { x: number[]; y: number[] };
 
@@ -88,10 +88,9 @@ export function binByXWithM4(x: Float64Array, y: Float64Array, bins: number, kno
   const count = new Uint32Array(bins);
   const scale = bins / (hi - lo);
   const candidates: number[] = [];
-  const size = n / buckets;
   let bucket = 0;
   let start = 0;
-  let end = Math.min(n, Math.floor(size));
+  let end = bucketEnd(0, buckets, n);
   let low = 0;
   let high = 0;
   let lowY = y[0];
@@ -108,7 +107,7 @@ export function binByXWithM4(x: Float64Array, y: Float64Array, bins: number, kno
       pushBucket(candidates, start, low, high, end - 1);
       bucket++;
       start = end;
-      end = Math.min(n, Math.floor((bucket + 1) * size));
+      end = bucketEnd(bucket, buckets, n);
       low = high = i;
       lowY = highY = v;
     } else if (v < lowY) {

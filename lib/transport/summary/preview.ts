@@ -13,6 +13,14 @@ export function m4Buckets(length: number, target: number): number {
   return length > target * CANDIDATES_PER_POINT ? Math.ceil((target * CANDIDATES_PER_POINT) / 4) : 0;
 }
 
+/**
+ * Where M4 bucket `b` of `buckets` over `length` points ends (exclusive). The last bucket always ends at the last point:
+ * b × (length / buckets) can round to just below `length` and would leave the final point out.
+ */
+export function bucketEnd(b: number, buckets: number, length: number): number {
+  return b >= buckets - 1 ? length : Math.min(length, Math.floor((b + 1) * (length / buckets)));
+}
+
 /** Adds a bucket's candidates in ascending order, each once (first ≤ lo, hi ≤ last). */
 export function pushBucket(out: number[], first: number, lo: number, hi: number, last: number): void {
   out.push(first);
@@ -25,11 +33,9 @@ export function pushBucket(out: number[], first: number, lo: number, hi: number,
 
 function m4Candidates(x: Float64Array, y: Float64Array, buckets: number): M4 {
   const out: number[] = [];
-  const size = x.length / buckets;
   let finite = 0;
-  for (let b = 0; b < buckets; b++) {
-    const start = Math.floor(b * size);
-    const end = Math.min(x.length, Math.floor((b + 1) * size));
+  for (let b = 0, start = 0; b < buckets; b++) {
+    const end = bucketEnd(b, buckets, x.length);
     let first = -1;
     let last = -1;
     let lo = -1;
@@ -54,6 +60,7 @@ function m4Candidates(x: Float64Array, y: Float64Array, buckets: number): M4 {
       last = i;
     }
     if (first >= 0) pushBucket(out, first, lo, hi, last);
+    start = end;
   }
   return { candidates: out, finite };
 }

@@ -32,6 +32,9 @@ describe('one pass instead of several', () => {
     [50_000, 500, 1],
     [123_457, 500, 2],
     [20_000, 300, 3],
+    // Lengths where (buckets × (n / buckets)) rounds below n: the last bucket must still end at the last point.
+    [4004, 500, 4],
+    [4007, 500, 5],
   ])('binByXWithM4 on %i points (preview of %i) = binByX, then the M4 pass', (n, target, seed) => {
     const { x, y } = loop(n, seed);
     const both = binByXWithM4(x, y, 4000, range(x), m4Buckets(n, target));
