@@ -278,15 +278,16 @@ export class TableBuilder implements FastLineSink {
   private expectedRows(buffered: BufferedLine[], dataLines: BufferedLine[]): number {
     const size = this.options.sizeBytes;
     const limit = Math.min(this.options.maxRows ?? Infinity, MAX_EXPECTED_ROWS);
+    // The row length is wanted with or without a size: the parallel reader sizes its segments' columns by it.
+    const sample = dataLines.slice(0, 200);
+    const perRow = sample.reduce((sum, l) => sum + l.text.length + 1, 0) / Math.max(1, sample.length);
+    this.bytesPerRow = Math.max(1, perRow);
     if (!size || !(size > 0)) return Math.min(FIRST_BLOCK_ROWS, limit);
     let before = 0;
     for (const l of buffered) {
       if (l === dataLines[0]) break;
       before += l.text.length + 1;
     }
-    const sample = dataLines.slice(0, 200);
-    const perRow = sample.reduce((sum, l) => sum + l.text.length + 1, 0) / Math.max(1, sample.length);
-    this.bytesPerRow = Math.max(1, perRow);
     return Math.max(1, Math.min(limit, Math.ceil((1.1 * Math.max(0, size - before)) / Math.max(1, perRow)) + 64));
   }
 
