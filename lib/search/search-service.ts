@@ -119,9 +119,8 @@ export async function searchPublished(query: SearchQuery): Promise<SearchResult>
  * starts): at 100k versions the build takes tens of seconds, which the first visitor would otherwise wait through.
  */
 export function warmSearchIndex(): void {
-  const started = Date.now();
   current().then(
-    (s) => log('info', 'search: index ready', { versions: s.index.size, ms: Date.now() - started }),
+    () => undefined, // build() logs 'search: index built' with its size and time
     (error: unknown) => log('warn', 'search: index not built at start; the first search will try again', {
       error: error instanceof Error ? error.message : String(error),
     }),
