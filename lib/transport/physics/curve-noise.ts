@@ -10,8 +10,9 @@ export type ScatterResult = { sigma: number; pointsUsed: number; estimator: 'sec
  * smooth curve cancels to first order. σ is the sample standard deviation of r_i/√(1+a_i²+b_i²); the mean is removed
  * so constant curvature does not count as noise. With even spacing this is std(second differences)/√6.
  * Chosen because it needs no model of the curve and no smoothing window (common practice for sweep noise).
+ * null when fewer than two residuals can be formed: too few points, neighbours at the same x, or non-finite values.
  */
-export function pointToPointScatter(values: readonly number[], x?: readonly number[]): ScatterResult {
+export function pointToPointScatter(values: readonly number[], x?: readonly number[]): ScatterResult | null {
   if (x && x.length !== values.length) throw new RangeError(`values and x differ in length (${values.length} vs ${x.length}).`);
   const z: number[] = [];
   for (let i = 1; i + 1 < values.length; i++) {
@@ -25,7 +26,7 @@ export function pointToPointScatter(values: readonly number[], x?: readonly numb
     const r = values[i] - (b * values[i - 1] + a * values[i + 1]); // linear interpolation from the neighbours
     if (Number.isFinite(r)) z.push(r / Math.sqrt(1 + a * a + b * b));
   }
-  if (z.length < 2) throw new RangeError('pointToPointScatter needs at least four points.');
+  if (z.length < 2) return null;
   let sum = 0;
   for (let i = 0; i < z.length; i++) sum += z[i];
   const mean = sum / z.length;

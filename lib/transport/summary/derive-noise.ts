@@ -22,16 +22,13 @@ export function deriveNoise(d: Derivation, y: ParsedColumn): void {
   if (!d.x || !y.converted) return;
   const block = middleBlock(d.x.values, y.values, NOISE_BLOCK);
   if (block.x.length < 8) return;
-  // The estimator needs neighbours at distinct x: an x column that barely changes (a fixed current, a held
-  // temperature) leaves too few, and the scatter is then reported as not computed rather than guessed.
-  let scatter: ReturnType<typeof pointToPointScatter>;
-  try {
-    scatter = pointToPointScatter(block.y, block.x);
-  } catch (error) {
-    if (!(error instanceof RangeError)) throw error;
+  // The estimator needs neighbours at distinct x and finite values: an x column that barely changes (a fixed current,
+  // a held temperature) leaves too few, and the scatter is then reported as not computed rather than guessed.
+  const scatter = pointToPointScatter(block.y, block.x);
+  if (!scatter) {
     d.notComputed.push({
       key: `noise.scatter.${y.name}`,
-      reason: `Too few points with distinct ${d.x.name} values next to each other to estimate the point-to-point scatter.`,
+      reason: `Too few neighbouring points with distinct ${d.x.name} values and finite ${y.name} values to estimate the point-to-point scatter.`,
     });
     return;
   }

@@ -8,7 +8,7 @@ describe('point-to-point scatter of sweeps (second differences / √6)', () => {
     const sigma = 2e-7;
     const n = 20000;
     const y = Array.from({ length: n }, (_, i) => 1e-3 * Math.sin(i / 2000) + 5e-4 * (i / n) ** 2 + sigma * g());
-    const r = pointToPointScatter(y);
+    const r = pointToPointScatter(y)!;
     expect(r.sigma / sigma).toBeCloseTo(1, 1); // within ±5 % for 2e4 points
     expect(r.pointsUsed).toBe(n);
   });
@@ -18,15 +18,18 @@ describe('point-to-point scatter of sweeps (second differences / √6)', () => {
     const d = y.slice(1, -1).map((v, i) => y[i] - 2 * v + y[i + 2]);
     const mean = d.reduce((s, v) => s + v, 0) / d.length;
     const std = Math.sqrt(d.reduce((s, v) => s + (v - mean) ** 2, 0) / (d.length - 1));
-    expect(pointToPointScatter(y).sigma).toBeCloseTo(std / Math.sqrt(6), 14);
+    expect(pointToPointScatter(y)!.sigma).toBeCloseTo(std / Math.sqrt(6), 14);
   });
 
   it('is zero for a straight line or a parabola, on an uneven grid too', () => {
     const rnd = seededRandom(3);
     let x = 0;
     const xs = Array.from({ length: 50 }, () => (x += 0.5 + rnd()));
-    expect(pointToPointScatter(xs.map((v) => 3 - 2 * v), xs).sigma).toBeLessThan(1e-12);
-    expect(pointToPointScatter([0, 1, 4, 9, 16, 25].map((v) => v * 1e-6)).sigma).toBeLessThan(1e-18);
+    expect(pointToPointScatter(xs.map((v) => 3 - 2 * v), xs)!.sigma).toBeLessThan(1e-12);
+    expect(pointToPointScatter([0, 1, 4, 9, 16, 25].map((v) => v * 1e-6))!.sigma).toBeLessThan(1e-18);
+    // Fewer than two usable residuals (too short, or every neighbour pair at one x): no figure rather than a guess.
+    expect(pointToPointScatter([1, 2, 3])).toBeNull();
+    expect(pointToPointScatter([1, 2, 3, 4, 5], [1, 1, 1, 1, 1])).toBeNull();
   });
 
   it('recovers σ on an uneven grid', () => {
@@ -35,7 +38,7 @@ describe('point-to-point scatter of sweeps (second differences / √6)', () => {
     let x = 0;
     const xs = Array.from({ length: 20000 }, () => (x += 0.2 + rnd()));
     const y = xs.map((v) => Math.cos(v / 500) + 0.01 * g());
-    expect(pointToPointScatter(y, xs).sigma / 0.01).toBeCloseTo(1, 1);
+    expect(pointToPointScatter(y, xs)!.sigma / 0.01).toBeCloseTo(1, 1);
   });
 });
 
