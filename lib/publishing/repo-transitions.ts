@@ -67,13 +67,14 @@ async function enqueueAll(trx: Knex.Transaction, jobs: OutboxJobSpec[]): Promise
 
 /**
  * One state transition in one transaction: lock the row, let `plan` decide from what it sees (it may throw),
- * then a conditional UPDATE (`WHERE state = expected`), the audit entry and the outbox jobs. Returns the job ids.
+ * then a conditional UPDATE (`WHERE state = expected`), the audit entry and the outbox jobs. Returns the jobs as
+ * committed, with their ids.
  */
 export async function applyTransition(
   versionId: string,
   expected: VersionState,
   plan: (locked: LockedVersion) => TransitionPlan,
-): Promise<{ jobIds: number[]; locked: LockedVersion }> {
+): Promise<{ jobIds: number[]; jobs: OutboxJobSpec[]; locked: LockedVersion }> {
   return db().transaction(async (trx) => {
     const locked = await lockVersion(trx, versionId);
     if (!locked) throw new AppError('not_found', 'We could not find this dataset version, or you do not have access to it.');
@@ -87,7 +88,7 @@ export async function applyTransition(
       });
     }
     await insertAuditRow(trx, versionId, p.audit);
-    return { jobIds: await enqueueAll(trx, p.jobs), locked };
+    return { jobIds: await enqueueAll(trx, p.jobs), jobs: p.jobs, locked };
   });
 }
 

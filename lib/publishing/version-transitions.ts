@@ -5,8 +5,7 @@ import { AppError } from '@/lib/errors';
 import { plural } from '@/lib/format/plural';
 import { log } from '@/lib/log';
 import { defaultOutboxHandlers, tryOutboxJobNow, type OutboxHandlers } from '@/lib/outbox/process-outbox';
-import { SEARCH_CHANGED_TOPIC } from '@/lib/search/repo';
-import { searchChangeCommitted } from '@/lib/search/search-changed';
+import { noteCommittedJobs } from '@/lib/search/search-changed';
 import { listUnfinishedUploads } from './repo';
 import { applyTransition, type LockedVersion, type TransitionPlan } from './repo-transitions';
 
@@ -56,9 +55,8 @@ export async function runTransition<P>(
   // Unreachable: the table grants no transition to anonymous visitors; this narrows the type.
   if (!user) throw new AppError('not_signed_in', 'Sign in to change this version.');
   const prepared = await args.prepare(ctx, user);
-  let planned: TransitionPlan | undefined;
-  const { jobIds, locked } = await applyTransition(args.versionId, ctx.version.state as VersionState, (row) => (planned = args.plan(row, prepared, ctx, user)));
-  if (planned?.jobs?.some((job) => job.topic === SEARCH_CHANGED_TOPIC)) searchChangeCommitted();
+  const { jobIds, jobs, locked } = await applyTransition(args.versionId, ctx.version.state as VersionState, (row) => args.plan(row, prepared, ctx, user));
+  noteCommittedJobs(jobs);
   const outcomes = await tryJobsNow(jobIds, deps.handlers ?? defaultOutboxHandlers());
   return { ctx, locked, jobIds, outcomes };
 }

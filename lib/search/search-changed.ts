@@ -10,11 +10,11 @@ export function searchChangedJob(datasetId: string, versionId: string) {
 const counter = globalThis as unknown as { ohmsteadSearchLocalChanges?: number };
 
 /**
- * Called once a transaction holding a searchChangedJob has committed in this process: this instance's index then
- * reads the log before its next search instead of within its catch-up interval (search-service.ts).
+ * Called with the outbox jobs of a transaction this process has just committed: when one is a searchChangedJob, this
+ * instance's index reads the log before its next search instead of within its catch-up interval (search-service.ts).
  */
-export function searchChangeCommitted(): void {
-  counter.ohmsteadSearchLocalChanges = localSearchChanges() + 1;
+export function noteCommittedJobs(jobs: readonly { topic: string }[]): void {
+  if (jobs.some((job) => job.topic === SEARCH_CHANGED_TOPIC)) counter.ohmsteadSearchLocalChanges = localSearchChanges() + 1;
 }
 
 /** How many search changes this process has committed (compared, never interpreted). */
