@@ -1,6 +1,7 @@
 // Number cells without regex or substrings: Clinger's fast path (PLDI 1990, "How to read floating point numbers
 // accurately"): an integer mantissa below 2^53 times or divided by an exact power of ten up to 1e22 is rounded
 // once, so it equals parseFloat. Anything longer falls back to Number() on the cell text.
+import { POW10 } from './plain-rows';
 
 export const CELL_NUMBER = 0;
 export const CELL_BLANK = 1;
@@ -9,7 +10,6 @@ export const CELL_TEXT = 3;
 export type CellKind = typeof CELL_NUMBER | typeof CELL_BLANK | typeof CELL_MISSING | typeof CELL_TEXT;
 
 const EXACT_LIMIT = 2 ** 53; // integers below it are exact doubles
-const POW10 = Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
 const MISSING_WORDS = new Set(['nan', '-nan', '+nan', 'na', 'n/a', '--', '-', '---', 'null', 'none', '?', '*']);
 
 const isSpace = (c: number) => c === 32 || c === 9;
