@@ -16,11 +16,6 @@ const MAX_PARTS = 9_000;
  */
 export const BUILD_PART_BYTES = 8 * MiB;
 export const BUILD_QUEUE = 2;
-/**
- * The upload joins the zip's chunks into parts itself: joining them before as well (build-package-stream.ts) copies
- * every byte twice (same bench: 12.3–12.4 s of CPU per GiB with 512 KiB joins, 11.6–11.7 s without).
- */
-export const BUILD_JOIN_BYTES = 0;
 
 /** The part size for a payload of this many bytes: BUILD_PART_BYTES, larger when it would need too many parts. */
 export function buildPartBytes(payloadBytes: number): number {
@@ -41,8 +36,6 @@ export type BuildCachedPackageArgs = {
   /** Other part size and parts in flight than buildPartBytes() and BUILD_QUEUE (bench/package.ts compares them). */
   partSizeBytes?: number;
   queueSize?: number;
-  /** Other joining of storage's chunks than BUILD_JOIN_BYTES. */
-  joinBytes?: number;
 };
 
 const asError = (e: unknown): Error => (e instanceof Error ? e : new Error(String(e)));
@@ -56,7 +49,9 @@ const asError = (e: unknown): Error => (e instanceof Error ? e : new Error(Strin
 export async function buildPackageIntoCache(args: BuildCachedPackageArgs): Promise<CachedPackage> {
   const { store, key, signal } = args;
   signal?.throwIfAborted();
-  const pkg = buildPackageStream(args.input, { store, compression: args.compression ?? 'store', joinBytes: args.joinBytes ?? BUILD_JOIN_BYTES });
+  // joinBytes 0: the upload joins the zip's chunks into parts itself, and joining them before as well copies every byte
+  // twice (bench:package: 12.3–12.4 s of CPU per GiB with 512 KiB joins, 11.6–11.7 s without).
+  const pkg = buildPackageStream(args.input, { store, compression: args.compression ?? 'store', joinBytes: 0 });
   const upload = startStreamUpload(store, key, {
     contentType: 'application/zip',
     partSizeBytes: args.partSizeBytes ?? buildPartBytes(pkg.plan.payloadBytes),
@@ -77,10 +72,10 @@ export async function buildPackageIntoCache(args: BuildCachedPackageArgs): Promi
     }
     // A cancelled reader ends like a finished one: only a build that was neither stopped nor refused may complete.
     signal?.throwIfAborted();
+    // write() answers false only once the upload has failed or been aborted; the catch below stops the reader.
     if (!uploading) {
-      stopReading();
       const outcome = await upload.outcome;
-      throw outcome.stored ? new Error(`the upload of ${key} ended before the package did`) : (outcome.error ?? new Error(`the upload of ${key} was aborted`));
+      throw (!outcome.stored && outcome.error) || new Error(`the upload of ${key} was aborted`);
     }
     const outcome = await upload.finish();
     if (!outcome.stored) throw outcome.error ?? new Error(`the upload of ${key} was aborted`);

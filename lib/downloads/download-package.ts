@@ -69,7 +69,7 @@ export type StreamPackageArgs = {
  */
 export function streamPackageReply(args: StreamPackageArgs): DownloadReply {
   const pkg = buildPackageStream(args.input, { store: args.store, compression: args.compression ?? 'store' });
-  return { status: 200, headers: packageHeaders(pkg.fileName), body: relayStream(pkg.stream, { onError: args.onFailure }, { joinBytes: JOIN }) };
+  return { status: 200, headers: packageHeaders(pkg.fileName), body: relayStream(pkg.stream, { joinBytes: JOIN, onError: args.onFailure }) };
 }
 
 /** Queues the worker's build of the cached copy; a failure to queue is logged and never fails the download. */

@@ -71,7 +71,7 @@ export async function runPackageBuild(payload: unknown, row: Pick<OutboxRow, 'id
   const started = performance.now();
   const renew = setInterval(() => {
     renewClaim(row.id, DEFAULT_LEASE_MS).catch((error: unknown) => {
-      log('warn', 'could not renew a package build\'s claim', { jobId: row.id, error: error instanceof Error ? error.message : String(error) });
+      log('warn', 'could not renew a package build\'s claim: another worker may start the same build when the claim runs out (harmless: the bytes are the same)', { jobId: row.id, error: error instanceof Error ? error.message : String(error) });
     });
   }, RENEW_EVERY_MS);
   try {

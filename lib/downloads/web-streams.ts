@@ -60,28 +60,21 @@ export function exactBodyStream(body: Readable, lengthBytes: number, onError?: (
   });
 }
 
-export type RelayHooks = {
-  /** The source ended normally and the client has every byte. */
-  onEnd?: () => void;
-  /** The source failed: the client's stream errors with the same error, so it sees a broken transfer. */
-  onError?: (error: Error) => void;
-  /** The client went away. */
-  onCancel?: () => void;
-};
-
 export type RelayOptions = {
   /**
    * Source chunks smaller than this are joined with the ones after them until at least this many bytes (the first
-   * chunk goes at once); larger chunks pass as they are, uncopied.
+   * chunk goes at once); a chunk at least this large passes as it is, uncopied, after any small ones held before it.
    */
   joinBytes?: number;
+  /** The source failed: the client's stream errors with the same error, so it sees a broken transfer. */
+  onError?: (error: Error) => void;
 };
 
 /**
- * Passes a web stream on, pulling from the source only when the client pulls, with hooks for the end. Nothing is
- * awaited per chunk but the source's read: the client's pace alone decides the reading.
+ * Passes a web stream on, pulling from the source only when the client pulls. Nothing is awaited per chunk but the
+ * source's read: the client's pace alone decides the reading.
  */
-export function relayStream(source: ReadableStream<Uint8Array>, hooks: RelayHooks, options: RelayOptions = {}): ReadableStream<Uint8Array> {
+export function relayStream(source: ReadableStream<Uint8Array>, options: RelayOptions = {}): ReadableStream<Uint8Array> {
   const reader = source.getReader();
   const joinBytes = options.joinBytes ?? 0;
   let cancelled = false;
@@ -101,15 +94,19 @@ export function relayStream(source: ReadableStream<Uint8Array>, hooks: RelayHook
         } catch (error) {
           if (cancelled) return;
           const failure = asError(error);
-          hooks.onError?.(failure);
+          options.onError?.(failure);
           controller.error(failure);
           return;
         }
         if (cancelled) return;
         if (next.done) {
           if (size > 0) send(controller, parts, size);
-          hooks.onEnd?.();
           controller.close();
+          return;
+        }
+        if (size > 0 && next.value.length >= joinBytes) {
+          send(controller, parts, size); // the small ones held so far, then the large chunk uncopied
+          controller.enqueue(next.value);
           return;
         }
         parts.push(next.value);
@@ -120,7 +117,6 @@ export function relayStream(source: ReadableStream<Uint8Array>, hooks: RelayHook
     },
     async cancel(reason) {
       cancelled = true;
-      hooks.onCancel?.();
       await reader.cancel(reason);
     },
   });
