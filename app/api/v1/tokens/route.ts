@@ -1,5 +1,6 @@
 import { route } from '@/lib/http/handler';
-import { requestIp, requireRequestUser, requireSessionUser } from '@/lib/http/request-user';
+import { clientAddress } from '@/lib/http/client-address';
+import { requireRequestUser, requireSessionUser } from '@/lib/http/request-user';
 import { readJsonBody } from '@/lib/datasets/read-json-body';
 import { createToken } from '@/lib/tokens/create-token';
 import { listTokens } from '@/lib/tokens/list-tokens';
@@ -17,6 +18,6 @@ export const GET = route(async (req) => {
 export const POST = route(async (req) => {
   const user = await requireRequestUser(req);
   requireSessionUser(user);
-  const created = await createToken(user, await readJsonBody(req, 8 * 1024), { ip: requestIp(req) });
+  const created = await createToken(user, await readJsonBody(req, 8 * 1024), { ip: clientAddress(req.headers) });
   return Response.json(created, { status: 201, headers: { 'cache-control': 'no-store' } });
 });

@@ -1,5 +1,6 @@
 import { route } from '@/lib/http/handler';
-import { requestIp, requireRequestUser, requireSessionUser } from '@/lib/http/request-user';
+import { clientAddress } from '@/lib/http/client-address';
+import { requireRequestUser, requireSessionUser } from '@/lib/http/request-user';
 import { revokeToken } from '@/lib/tokens/revoke-token';
 
 type Ctx = { params: Promise<{ tokenId: string }> };
@@ -9,5 +10,5 @@ export const DELETE = route<Ctx>(async (req, { params }) => {
   const { tokenId } = await params;
   const user = await requireRequestUser(req);
   requireSessionUser(user);
-  return Response.json({ token: await revokeToken(user, tokenId, { ip: requestIp(req) }) });
+  return Response.json({ token: await revokeToken(user, tokenId, { ip: clientAddress(req.headers) }) });
 });
