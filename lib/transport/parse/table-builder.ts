@@ -68,16 +68,24 @@ export class TableBuilder implements FastLineSink {
   private crew: WorkerCrew | undefined;
 
   constructor(private readonly options: ParseOptions) {
-    const parallel = options.parallel;
-    const threads = parallel === false || options.maxRows !== undefined ? undefined : workerThreads();
-    if (!threads || parallel === false || (options.sizeBytes ?? Infinity) < (parallel?.minBytes ?? PARALLEL_MIN_BYTES)) return;
+    const threads = this.parallelThreads();
+    const parallel = options.parallel || undefined;
+    if (!threads || (options.sizeBytes ?? Infinity) < (parallel?.minBytes ?? PARALLEL_MIN_BYTES)) return;
     if ((parallel?.minIdleCores ?? MIN_IDLE_CORES) > 0) this.cpuAtStart = cpuSample();
-    if (options.sizeBytes !== undefined) {
-      try {
-        this.crew = new WorkerCrew(threads, Math.max(1, parallel?.workers ?? defaultWorkers()));
-      } catch {
-        this.crew = undefined; // no threads to be had: read here
-      }
+    if (options.sizeBytes !== undefined) this.crew = this.startCrew(threads);
+  }
+
+  /** node:worker_threads when the options allow a parallel read at all (no row limit, parallel not false), else undefined. */
+  private parallelThreads(): NonNullable<ReturnType<typeof workerThreads>> | undefined {
+    return this.options.parallel === false || this.options.maxRows !== undefined ? undefined : workerThreads();
+  }
+
+  /** The workers for this table, or undefined when no thread can be had (the rows are then read here). */
+  private startCrew(threads: NonNullable<ReturnType<typeof workerThreads>>): WorkerCrew | undefined {
+    try {
+      return new WorkerCrew(threads, Math.max(1, (this.options.parallel || undefined)?.workers ?? defaultWorkers()));
+    } catch {
+      return undefined;
     }
   }
 
@@ -136,9 +144,9 @@ export class TableBuilder implements FastLineSink {
    */
   parallel = (bytesRead: number): ParallelPlan | undefined => {
     if (this.parallelRefused || this.format === undefined) return undefined;
-    const options = this.options.parallel;
-    const threads = options === false || this.options.maxRows !== undefined ? undefined : workerThreads();
-    if (!threads || options === false) {
+    const threads = this.parallelThreads();
+    const options = this.options.parallel || undefined;
+    if (!threads) {
       this.parallelRefused = true;
       return undefined;
     }
@@ -159,13 +167,9 @@ export class TableBuilder implements FastLineSink {
       }
     }
     this.parallelRefused = true; // one plan per table
-    let crew = this.crew;
+    const crew = this.crew ?? this.startCrew(threads);
     this.crew = undefined; // the reader stops it now
-    try {
-      crew ??= new WorkerCrew(threads, Math.max(1, options?.workers ?? defaultWorkers()));
-    } catch {
-      return undefined; // no threads to be had: read here
-    }
+    if (!crew) return undefined; // no threads to be had: read here
     return { crew, format: this.format, columns: this.specs.length, appendRows: this.appendRows, bytesPerRow: this.bytesPerRow, options: options ?? {} };
   };
 
