@@ -142,13 +142,12 @@ export async function readLines(source: ByteSource, options: ReadLinesOptions, s
 
   // Once the table's rows have a known layout, a large rest of the file may go to ParallelRows instead of the splitter.
   let rows: ParallelRows | undefined;
-  let planned = false;
   const startParallel = (): void => {
-    const sep = splitter?.separator;
-    const plan = splitter && sep !== undefined && !stopped ? sink.parallel?.(bytesRead) : undefined;
-    if (!splitter || sep === undefined || !plan) return;
-    planned = true;
     const s = splitter;
+    const sep = s?.separator;
+    if (!s || sep === undefined || stopped) return;
+    const plan = sink.parallel?.(bytesRead); // one plan per table: once refused or taken, undefined from then on
+    if (!plan) return;
     const partial = s.takePartial();
     try {
       const target = {
@@ -160,9 +159,10 @@ export async function readLines(source: ByteSource, options: ReadLinesOptions, s
         end: (bytes: Uint8Array) => s.write(bytes, true),
       };
       rows = new ParallelRows(plan.crew, target, sep, options.maxLineBytes, plan.options, plan.bytesPerRow, partial);
-    } catch {
+    } catch (error) {
       plan.crew.stop();
-      s.write(partial, false); // no workers after all: the partial line goes back
+      if (!(error instanceof RangeError)) throw error; // a bug, not a shortage: do not hide it behind a slower read
+      s.write(partial, false); // no shared memory to be had: the partial line goes back and the read goes on here
     }
   };
 
@@ -182,7 +182,7 @@ export async function readLines(source: ByteSource, options: ReadLinesOptions, s
           if (sniffLength >= SNIFF_BYTES) startDecoding(concat(sniff, sniffLength), false);
         } else if (rows) await rows.write(chunk, false);
         else write(chunk, false);
-        if (!rows && !planned && splitter && sink.parallel) startParallel();
+        if (!rows && sink.parallel) startParallel();
         options.onProgress?.(bytesRead);
         if (stopped) break;
       }
