@@ -1,7 +1,7 @@
 // Facet values of every indexed version as small integer codes, the facet filters of a query, and their counts.
 // FlexSearch's own tag filter is unreliable in 0.8.212 (stack.md), so filtering and counting happen here, in tight
-// loops over typed arrays (facet-column.ts): one pass per filtering facet over the candidates of a query, then one
-// counting pass per facet, or per pack of small facets (facet-packs.ts).
+// loops over typed arrays (facet-column.ts): the small facets in packs, filtered in one pass and counted in another
+// (facet-packs.ts), and each larger facet (material, usually) in a pass of its own.
 import { FacetColumn } from './facet-column';
 import { FacetPacks } from './facet-packs';
 import { formulaKey, FORMULA_ALIASES } from './normalise-formula';
@@ -79,11 +79,16 @@ export class FacetColumns {
     const fail = this.fail.length >= length ? this.fail : (this.fail = new Uint8Array(length));
     fail.fill(0, 0, length);
     if (!selectsAnything(selection)) return { passed: length, counts: this.countAll(slots, length, fail, 0) };
-    let active = 0;
-    FACET_NAMES.forEach((name, f) => {
+    const flags = FACET_NAMES.map((name, f) => {
       const values = selection[name];
-      if (!values?.length) return;
-      this.ordered[f].markFailures(slots, length, this.ordered[f].selection(values), fail, 1 << f);
+      return values?.length ? this.ordered[f].selection(values) : null;
+    });
+    const packed = this.packs.markFailures(slots, length, fail, (f) => flags[f]);
+    length = packed.length;
+    let active = packed.marked;
+    flags.forEach((selected, f) => {
+      if (!selected || (packed.marked >> f) & 1) return;
+      this.ordered[f].markFailures(slots, length, selected, fail, 1 << f);
       // A slot failing two facets counts for none of them and never passes: drop it, so later passes read fewer
       // (and every slot counted below fails at most one facet).
       if (active !== 0) length = dropDoubleFailures(slots, fail, length);
@@ -100,7 +105,7 @@ export class FacetColumns {
   // ones with few values count bit patterns, expanded after. `active`: bit f set when facet f filters.
   private countAll(slots: Int32Array, length: number, fail: Uint8Array, active: number): Int32Array[] {
     const counts: Int32Array[] = [];
-    for (const pack of this.packs.current()) this.packs.count(pack, slots, length, fail, active, counts);
+    this.packs.countAll(slots, length, fail, active, counts);
     return this.ordered.map((column, f) => {
       if (counts[f]) return counts[f];
       const shared = column.countKeys();

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import type { FacetPacks } from '@/lib/search/facet-packs';
 import { FACET_LIST_LIMIT, FacetColumns } from '@/lib/search/facets';
 
 // Counts are constructed by hand: slot s carries the values listed for it below.
@@ -109,4 +110,83 @@ describe('FacetColumns', () => {
     expect(list[1]).toEqual({ value: 'v35', count: 35 });
     expect(list[FACET_LIST_LIMIT - 1]).toEqual({ value: 'v07', count: 7 });
   });
+
+  // A reference answer computed the slow, obvious way (every slot, every facet, every value) for random data and
+  // random selections; the packed passes (facet-packs.ts) must give the same slots and counts. Two layouts: the usual
+  // two packs, and one pack (600 groups do not fit a pack with the years), which takes the general loop.
+  it.each([
+    { layout: 'two packs', groups: 12 },
+    { layout: 'one pack', groups: 600 },
+  ])('filters and counts like a slot-by-slot reference ($layout)', ({ layout, groups }) => {
+    const random = mulberry32(groups);
+    const pick = <T,>(list: readonly T[]) => list[Math.floor(random() * list.length)];
+    const N = 3000;
+    const values = {
+      material: ['m0', 'm1', 'm2', 'm3', 'm4'],
+      quantity: ['q0', 'q1', 'q2', 'q3'],
+      method: ['k0', 'k1', 'k2'],
+      excitation: ['dc', 'ac', 'reversal'],
+      group: Array.from({ length: groups }, (_, g) => `g${g}`),
+      year: ['2021', '2022', '2023', '2024', '2025'],
+    };
+    type Row = Record<keyof typeof values, string[]>;
+    const rows: Row[] = [];
+    const facets = new FacetColumns(N);
+    for (let s = 0; s < N; s++) {
+      const some = (list: string[]) => list.filter(() => random() < 0.35);
+      const one = (list: string[]) => (random() < 0.1 ? [] : [pick(list)]); // a tenth have no value
+      const row: Row = {
+        material: one(values.material), quantity: some(values.quantity), method: some(values.method),
+        excitation: one(values.excitation), group: one(values.group), year: one(values.year),
+      };
+      rows.push(row);
+      facets.columns.material.setOne(s, row.material[0] ?? '');
+      facets.columns.quantity.setMany(s, row.quantity);
+      facets.columns.method.setMany(s, row.method);
+      facets.columns.excitation.setOne(s, row.excitation[0] ?? '');
+      facets.columns.group.setOne(s, row.group[0] ?? '');
+      facets.columns.year.setOne(s, row.year[0] ?? '');
+    }
+    const packs = (facets as unknown as { packs: FacetPacks }).packs.current().length;
+    expect(packs).toBe(layout === 'two packs' ? 2 : 1);
+    const names = Object.keys(values) as (keyof typeof values)[];
+    for (let trial = 0; trial < 60; trial++) {
+      // Each facet filters with probability ½, by one to three values (now and then one the index has never seen).
+      const selection: Partial<Row> = {};
+      for (const name of names) {
+        if (random() < 0.5) continue;
+        const chosen = Array.from({ length: 1 + Math.floor(random() * 3) }, () => (random() < 0.05 ? 'unseen' : pick(values[name])));
+        selection[name] = [...new Set(chosen)];
+      }
+      const candidates = Array.from({ length: N }, (_, s) => s).filter(() => random() < 0.6);
+      const passes = (s: number, name: keyof typeof values) => !selection[name] || rows[s][name].some((v) => selection[name]!.includes(v));
+      const expectedSlots = candidates.filter((s) => names.every((name) => passes(s, name)));
+      const slots = Int32Array.from(candidates);
+      const { passed, counts } = facets.filterAndCount(slots, slots.length, selection);
+      expect([...slots.subarray(0, passed)]).toEqual(expectedSlots);
+      names.forEach((name, f) => {
+        const expected = new Map<string, number>();
+        for (const s of candidates) {
+          if (!names.every((other) => other === name || passes(s, other))) continue;
+          for (const v of rows[s][name]) expected.set(v, (expected.get(v) ?? 0) + 1);
+        }
+        const column = facets.columns[name];
+        const got = new Map<string, number>();
+        counts[f].forEach((n, code) => n > 0 && got.set(column.values[code], n));
+        expect(got, `${name} counts, selection ${JSON.stringify(selection)}`).toEqual(expected);
+      });
+    }
+  });
 });
+
+// A small seeded generator (mulberry32, public domain), so a failure can be replayed.
+function mulberry32(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
