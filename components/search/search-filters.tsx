@@ -103,6 +103,7 @@ export function SearchFilters({ state, ranges, facets, fieldErrors = {}, clearHr
               className="h-4 w-4 accent-copper-700" />
             Partial overlap is enough
           </label>
+          <p className="text-xs text-slate-500">Bounds match within 1 %: a sweep logged as 2.0015–299.9998 K counts as 2–300 K.</p>
         </fieldset>
         <label className="flex items-center gap-2 text-sm text-slate-800">
           <input type="checkbox" name="allVersions" value="true" checked={includesAllVersions(state)} onChange={(e) => on.onAllVersions(e.target.checked)}

@@ -8,7 +8,18 @@
 // rangeMode 'overlaps' relaxes all three to "some of the curve is in the range": docMax ≥ a and docMin ≤ b for T and f
 //   (a single bound is a half-line), and docMin ≤ x and docMax ≥ −x for B (some points at |B| ≤ x).
 // A version without the range in question never passes a filter on it (a DC curve has no frequency range).
+//
+// Bounds are matched within BOUND_TOLERANCE of their size, in the direction that admits the curve: a sweep logged as
+// 2.0015–299.9998 K is a "2–300 K" curve (the controller settles near, not on, its set points), and a magnet ramped to
+// 9 T that reads 8.998 T at the top has reached 9 T.
 import type { SearchDoc } from './types';
+
+/** Relative tolerance on every bound of a range filter (1 %, our choice: well beyond how far a settled reading strays from its set point). */
+export const BOUND_TOLERANCE = 0.01;
+
+// A bound moved down or up by BOUND_TOLERANCE of its magnitude (an open end, ±Infinity, stays as it is).
+const below = (v: number) => (Number.isFinite(v) ? v - BOUND_TOLERANCE * Math.abs(v) : v);
+const above = (v: number) => (Number.isFinite(v) ? v + BOUND_TOLERANCE * Math.abs(v) : v);
 
 export type RangeFilterParams = {
   tMin?: number;
@@ -79,15 +90,15 @@ export class RangeColumns {
     const overlaps = params.rangeMode === 'overlaps';
     const { lo, hi } = this;
     if (tMin !== undefined || tMax !== undefined) {
-      if (overlaps) length = keepReaching(slots, length, lo.temperatureK, hi.temperatureK, tMax ?? Infinity, tMin ?? -Infinity);
-      else length = keepReaching(slots, length, lo.temperatureK, hi.temperatureK, tMin ?? (tMax as number), tMax ?? (tMin as number));
+      if (overlaps) length = keepReaching(slots, length, lo.temperatureK, hi.temperatureK, above(tMax ?? Infinity), below(tMin ?? -Infinity));
+      else length = keepReaching(slots, length, lo.temperatureK, hi.temperatureK, above(tMin ?? (tMax as number)), below(tMax ?? (tMin as number)));
     }
     if (bMax !== undefined) {
-      if (overlaps) length = keepReaching(slots, length, lo.fieldT, hi.fieldT, bMax, -bMax);
-      else length = keepBeyond(slots, length, lo.fieldT, hi.fieldT, bMax);
+      if (overlaps) length = keepReaching(slots, length, lo.fieldT, hi.fieldT, above(bMax), -above(bMax));
+      else length = keepBeyond(slots, length, lo.fieldT, hi.fieldT, below(bMax));
     }
     if (fMin !== undefined || fMax !== undefined) {
-      const a = fMin ?? -Infinity, b = fMax ?? Infinity;
+      const a = below(fMin ?? -Infinity), b = above(fMax ?? Infinity);
       if (overlaps) length = keepReaching(slots, length, lo.frequencyHz, hi.frequencyHz, b, a);
       else length = keepWithin(slots, length, lo.frequencyHz, hi.frequencyHz, a, b);
     }

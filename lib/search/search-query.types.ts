@@ -28,7 +28,7 @@ export interface SearchQuery {
   fMin?: number;
   /** Highest frequency (Hz) */
   fMax?: number;
-  /** Range match — covers: the curve spans the temperature range, reaches the field, lies in the frequency band; overlaps: any overlap. */
+  /** Range match — covers: the curve spans the temperature range, reaches the field, lies in the frequency band; overlaps: any overlap. Either way a bound is matched within 1 % of its value (a sweep logged as 2.0015–299.9998 K covers 2–300 K). */
   rangeMode?: 'covers' | 'overlaps';
   /** Sort */
   sort?: 'relevance' | 'date';

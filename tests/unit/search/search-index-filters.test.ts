@@ -1,7 +1,7 @@
 import { beforeEach, describe, expect, it } from 'vitest';
 import { SearchIndex } from '@/lib/search/search-index';
-import type { SearchQuery } from '@/lib/search/types';
-import { FIXTURE } from './fixtures';
+import type { SearchDoc, SearchQuery } from '@/lib/search/types';
+import { byId, FIXTURE } from './fixtures';
 
 // Expected ids and counts are hand-counted from the table in fixtures.ts.
 let index: SearchIndex;
@@ -96,6 +96,25 @@ describe('range filters (rangeMode covers by default, overlaps on request)', () 
     expect(ids({ fMin: 10, fMax: 20, rangeMode: 'overlaps' })).toEqual(['a3', 'b2v2', 'c1']);
     expect(ids({ fMax: 10 })).toEqual([]);
     expect(ids({ fMax: 10, rangeMode: 'overlaps' })).toEqual(['c1']);
+  });
+
+  it('matches a bound within 1 % of its size: a sweep logged as 2.0015–299.9998 K is a 2–300 K curve', () => {
+    // Readings as a controller logs them near its set points (invented values; the tolerance is BOUND_TOLERANCE).
+    const logged = new SearchIndex();
+    const add = (versionId: string, ranges: SearchDoc['ranges']) =>
+      logged.add({ ...byId('a1'), versionId, datasetId: `ds-${versionId}`, ranges });
+    add('sweep', { temperatureK: [2.0015, 299.9998], fieldT: [-8.998, 8.998], frequencyHz: [100.4, 100.4] });
+    add('short', { temperatureK: [4.5, 296], fieldT: [0, 8.9], frequencyHz: [9.95, 9.95] });
+    const found = (q: SearchQuery) => logged.search({ sort: 'date', ...q }).hits.map((h) => h.doc.versionId).sort();
+    expect(found({ tMin: 2, tMax: 300 })).toEqual(['sweep']);
+    expect(found({ tMin: 4, tMax: 300 })).toEqual(['sweep']); // 296 K is more than 1 % short of 300 K
+    expect(found({ tMin: 4.46, tMax: 293 })).toEqual(['short', 'sweep']); // 4.5 K is within 1 % of 4.46 K
+    expect(found({ tMax: 300 })).toEqual(['sweep']);
+    expect(found({ bMax: 9 })).toEqual(['sweep']); // 8.998 T reaches 9 T; 8.9 T does not
+    expect(found({ fMin: 10, fMax: 100 })).toEqual(['short', 'sweep']); // 9.95 Hz and 100.4 Hz are within 1 % of the band
+    expect(found({ fMin: 10.5, fMax: 99 })).toEqual([]);
+    expect(found({ tMin: 301, rangeMode: 'overlaps' })).toEqual(['sweep']); // 299.9998 K is within 1 % of 301 K
+    expect(found({ tMin: 305, rangeMode: 'overlaps' })).toEqual([]);
   });
 
   it('combines ranges with text and facets, and counts facets after the range filter', () => {
