@@ -113,6 +113,7 @@ export function formatQuantity(value: number, ucum: string, digits = 3): string 
 
 /** A range of one quantity: '2–300 K', '255 µΩ – 44 mΩ' (units shared when both ends print with the same one). */
 export function formatRange(min: number, max: number, ucum: string): string {
+  if (min === max) return formatQuantityParts(min, ucum).text; // a fixed value ("0 T"), not a range of one point
   const a = formatQuantityParts(min, ucum).text;
   const b = formatQuantityParts(max, ucum).text;
   const unitA = a.split(' ').slice(1).join(' ');

@@ -57,6 +57,8 @@ describe('formatQuantity (product design, "Numbers")', () => {
 
   it('prints ranges with a shared unit when both ends use it', () => {
     expect(formatRange(2, 300, 'K')).toBe('2–300 K');
+    expect(formatRange(0, 0, 'T')).toBe('0 T'); // a field held at zero reads as one value
+    expect(formatRange(13.7, 13.7, 'Hz')).toBe('13.7 Hz');
     expect(formatRange(0.000254648, 0.04395924, 'Ohm')).toBe('255 µΩ – 44 mΩ');
   });
 });
