@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { FacetPacks } from '@/lib/search/facet-packs';
 import { FACET_LIST_LIMIT, FacetColumns } from '@/lib/search/facets';
+import { seededRandom } from '../transport/physics/seeded-random';
 
 // Counts are constructed by hand: slot s carries the values listed for it below.
 function filled(perSlot: { method: string[]; material: string }[]) {
@@ -118,7 +119,7 @@ describe('FacetColumns', () => {
     { layout: 'two packs', groups: 12 },
     { layout: 'one pack', groups: 600 },
   ])('filters and counts like a slot-by-slot reference ($layout)', ({ layout, groups }) => {
-    const random = mulberry32(groups);
+    const random = seededRandom(groups);
     const pick = <T,>(list: readonly T[]) => list[Math.floor(random() * list.length)];
     const N = 3000;
     const values = {
@@ -178,15 +179,3 @@ describe('FacetColumns', () => {
     }
   });
 });
-
-// A small seeded generator (mulberry32, public domain), so a failure can be replayed.
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
