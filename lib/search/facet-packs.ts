@@ -2,8 +2,8 @@
 // countKeys) of facets whose key ranges multiply to at most PACK_SIZE (quantity × method × excitation, group × year).
 // A query's filters on those facets become a table from code to failure bits, and one histogram of the codes is split
 // back into each facet's counts: the candidates are read once to filter and once to count, whatever the number of
-// facets selected (the usual two packs in the same loop). Codes follow every change of a member column (FacetColumn.onChange) and are brought up to
-// date, or rebuilt when a dictionary outgrows its field, at the next count.
+// facets selected (the usual two packs in the same loop). Codes follow every change of a member column
+// (FacetColumn.onChange) and are brought up to date, or rebuilt when a dictionary outgrows its field, at the next count.
 import type { FacetColumn } from './facet-column';
 
 const PACK_SIZE = 4096;
