@@ -14,7 +14,8 @@
 // 9 T that reads 8.998 T at the top has reached 9 T.
 import type { SearchDoc } from './types';
 
-/** Relative tolerance on every bound of a range filter (1 %, our choice: well beyond how far a settled reading strays from its set point). */
+/** Relative tolerance on every bound of a range filter (1 %, our choice: well beyond how far a settled reading strays
+ * from its set point). */
 export const BOUND_TOLERANCE = 0.01;
 
 // A bound moved down or up by BOUND_TOLERANCE of its magnitude (an open end, ±Infinity, stays as it is).
@@ -90,8 +91,9 @@ export class RangeColumns {
     const overlaps = params.rangeMode === 'overlaps';
     const { lo, hi } = this;
     if (tMin !== undefined || tMax !== undefined) {
-      if (overlaps) length = keepReaching(slots, length, lo.temperatureK, hi.temperatureK, above(tMax ?? Infinity), below(tMin ?? -Infinity));
-      else length = keepReaching(slots, length, lo.temperatureK, hi.temperatureK, above(tMin ?? (tMax as number)), below(tMax ?? (tMin as number)));
+      const [tLo, tHi] = [lo.temperatureK, hi.temperatureK];
+      if (overlaps) length = keepReaching(slots, length, tLo, tHi, above(tMax ?? Infinity), below(tMin ?? -Infinity));
+      else length = keepReaching(slots, length, tLo, tHi, above(tMin ?? (tMax as number)), below(tMax ?? (tMin as number)));
     }
     if (bMax !== undefined) {
       if (overlaps) length = keepReaching(slots, length, lo.fieldT, hi.fieldT, above(bMax), -above(bMax));
