@@ -10,7 +10,7 @@ import type { SearchDoc, SearchQuery, SearchResult } from './types';
 // 'search.changed' log in the outbox (every instance reads every entry; none consumes it for the others).
 // The log is read at most once per CATCH_UP_INTERVAL_MS rather than on every search: a change committed by another
 // instance shows here within that interval (1 s, as a search engine's usual refresh interval), while one committed by
-// this instance is caught up before the next search (searchChangeCommitted in search-changed.ts).
+// this instance is caught up before the next search (noteCommittedJobs in search-changed.ts).
 export const CATCH_UP_INTERVAL_MS = 1000;
 
 /** `byDataset` remembers which versions each dataset has in the index, to drop withdrawn or superseded ones. */
