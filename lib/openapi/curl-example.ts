@@ -8,8 +8,6 @@ import type { JsonObject } from './embed-schemas';
 /** versionId → $VERSION_ID */
 export const shellVariable = (param: string) => `$${param.replace(/([a-z0-9])([A-Z])/g, '$1_$2').toUpperCase()}`;
 
-export { shellQuote };
-
 type Operation = JsonObject & { security?: JsonObject[]; parameters?: JsonObject[]; requestBody?: JsonObject; responses?: Record<string, JsonObject> };
 
 function bodyExample(doc: JsonObject, op: Operation): { inline: unknown } | { file: string } | null {

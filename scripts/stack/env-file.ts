@@ -5,8 +5,6 @@ import path from 'node:path';
 import { shellQuote } from '@/lib/format/shell-quote';
 import type { Stack } from './index';
 
-export { shellQuote };
-
 export function envFileText(env: Record<string, string>): string {
   return Object.entries(env).map(([k, v]) => `${k}=${shellQuote(v)}`).join('\n') + '\n';
 }

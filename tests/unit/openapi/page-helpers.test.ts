@@ -2,7 +2,8 @@
 import { describe, expect, it } from 'vitest';
 import { apiPageModel } from '@/lib/openapi/api-page-model';
 import { buildOpenApi } from '@/lib/openapi/build-openapi';
-import { curlExample, shellQuote, shellVariable } from '@/lib/openapi/curl-example';
+import { shellQuote } from '@/lib/format/shell-quote';
+import { curlExample, shellVariable } from '@/lib/openapi/curl-example';
 import { fieldRows } from '@/lib/openapi/describe-schema';
 import { OPERATIONS } from '@/lib/openapi/routes';
 

@@ -3,7 +3,8 @@ import { mkdtempSync, readFileSync, rmSync, statSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, describe, expect, it } from 'vitest';
-import { envFileText, shellQuote, writeEnvFile } from '@/scripts/stack/env-file';
+import { shellQuote } from '@/lib/format/shell-quote';
+import { envFileText, writeEnvFile } from '@/scripts/stack/env-file';
 import { dataLayout } from '@/scripts/stack/layout';
 import { parseEnvSh } from '@/scripts/stack-env-file';
 
