@@ -1,6 +1,7 @@
 import type { FormEvent, MouseEvent } from 'react';
 import type { FieldErrors } from '@/lib/errors';
 import { formatCount } from '@/lib/format/plural';
+import { BOUND_TOLERANCE } from '@/lib/search/ranges';
 import type { FacetBucket, FacetName } from '@/lib/search/types';
 import { facetLabel } from './facet-labels';
 import {
@@ -103,7 +104,7 @@ export function SearchFilters({ state, ranges, facets, fieldErrors = {}, clearHr
               className="h-4 w-4 accent-copper-700" />
             Partial overlap is enough
           </label>
-          <p className="text-xs text-slate-500">Bounds match within 1 %: a sweep logged as 2.0015–299.9998 K counts as 2–300 K.</p>
+          <p className="text-xs text-slate-500">Bounds match within {BOUND_TOLERANCE * 100} %: a sweep logged as 2.0015–299.9998 K counts as 2–300 K.</p>
         </fieldset>
         <label className="flex items-center gap-2 text-sm text-slate-800">
           <input type="checkbox" name="allVersions" value="true" checked={includesAllVersions(state)} onChange={(e) => on.onAllVersions(e.target.checked)}
