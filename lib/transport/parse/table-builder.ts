@@ -8,7 +8,7 @@ import { splitHeaderCell } from './header';
 import { CELL_NUMBER, CELL_TEXT, NumberReader } from './number';
 import { commentBody, readPreamble, sectionName, type BufferedLine } from './preamble';
 import type { ParallelPlan } from './line-reader';
-import { cpuSample, defaultWorkers, IDLE_WINDOW_MS, idleCores, MIN_IDLE_CORES, PARALLEL_MIN_BYTES, WorkerCrew, workerThreads, type CpuSample } from './parallel-rows';
+import { cpuSample, defaultWorkers, IDLE_WINDOW_MS, idleCores, MIN_IDLE_CORES, PARALLEL_MIN_BYTES, WorkerCrew, workerThreads, type CpuSample, type ParallelOptions } from './parallel-rows';
 import { emptyStats, mergeStats, readPlainRows, rowFormat, STATS_PER_COLUMN, type CellFallback, type RowCursor, type RowFormat } from './plain-rows';
 import { normaliseName } from './quantity-names';
 import type { ColumnOverride, ParseOptions } from './types';
@@ -69,10 +69,15 @@ export class TableBuilder implements FastLineSink {
 
   constructor(private readonly options: ParseOptions) {
     const threads = this.parallelThreads();
-    const parallel = options.parallel || undefined;
+    const parallel = this.parallelOptions;
     if (!threads || (options.sizeBytes ?? Infinity) < (parallel?.minBytes ?? PARALLEL_MIN_BYTES)) return;
     if ((parallel?.minIdleCores ?? MIN_IDLE_CORES) > 0) this.cpuAtStart = cpuSample();
     if (options.sizeBytes !== undefined) this.crew = this.startCrew(threads);
+  }
+
+  /** The parallel read's tuning (undefined for defaults, and when `parallel: false` forbids it: see parallelThreads). */
+  private get parallelOptions(): ParallelOptions | undefined {
+    return this.options.parallel || undefined;
   }
 
   /** node:worker_threads when the options allow a parallel read at all (no row limit, parallel not false), else undefined. */
@@ -83,7 +88,7 @@ export class TableBuilder implements FastLineSink {
   /** The workers for this table, or undefined when no thread can be had (the rows are then read here). */
   private startCrew(threads: NonNullable<ReturnType<typeof workerThreads>>): WorkerCrew | undefined {
     try {
-      return new WorkerCrew(threads, Math.max(1, (this.options.parallel || undefined)?.workers ?? defaultWorkers()));
+      return new WorkerCrew(threads, Math.max(1, this.parallelOptions?.workers ?? defaultWorkers()));
     } catch {
       return undefined;
     }
@@ -145,7 +150,7 @@ export class TableBuilder implements FastLineSink {
   parallel = (bytesRead: number): ParallelPlan | undefined => {
     if (this.parallelRefused || this.format === undefined) return undefined;
     const threads = this.parallelThreads();
-    const options = this.options.parallel || undefined;
+    const options = this.parallelOptions;
     if (!threads) {
       this.parallelRefused = true;
       return undefined;
