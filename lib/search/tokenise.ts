@@ -21,9 +21,12 @@ export function termKey(word: string): string {
   return finishKey(key);
 }
 
-// Cut to MAX_TERM_CHARS, then the plain English plural: letters-only words of 5+ characters (films → film), except
-// -ss, -us, -is; formulas and short symbols stay whole. (Char codes instead of regexes: this runs for every word indexed.)
-function finishKey(key: string): string {
+/**
+ * A lower-cased word's key: cut to MAX_TERM_CHARS, then the plain English plural dropped from letters-only words of 5+
+ * characters (films → film), except -ss, -us, -is; formulas and short symbols stay whole. (Char codes instead of
+ * regexes: this runs for every word indexed.)
+ */
+export function finishKey(key: string): string {
   if (key.length > MAX_TERM_CHARS) key = key.slice(0, MAX_TERM_CHARS);
   const n = key.length;
   if (n < 5 || key.charCodeAt(n - 1) !== 115) return key;

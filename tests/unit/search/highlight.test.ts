@@ -90,5 +90,20 @@ describe('highlightSegments', () => {
       const max = next() < 0.5 ? SNIPPET_CHARS : undefined;
       expect(highlightSegments(text, terms, max), JSON.stringify({ text, terms: [...terms], max })).toEqual(reference(text, terms, max));
     }
+    // Text whose only non-ASCII characters are separators and sub- or superscript digits, with digit-free terms (what
+    // most cards carry, read by finding the terms in the lower-cased text): words that contain a term without being
+    // it, plurals, long words cut to 32 characters (digits past the cut leave a digit-free key), digits joined across
+    // dots, and cuts falling inside words; '𝑥' (a letter outside the first plane, keyed x) must send a text the general way.
+    const plain = ['Films', 'FILM', 'filmed', 'microfilm', 'film2', 'film.', '4.2', '1.2.3', '1..2', 'Mn₃Ba', 'x²', 'x².5',
+      'hall-bar', 'Hall,', 'resistances', 'Resistance', `${'a'.repeat(31)}s`, 'b'.repeat(40), 'bars', '–', '(bar)', '7.film',
+      `${'c'.repeat(32)}7`, `${'c'.repeat(31)}7`, `${'c'.repeat(33)}₂x`, '𝑥'];
+    const plainTerms = ['film', 'hall', 'resistance', 'bar', 'mn', 'ba', 'x', 'a'.repeat(31), 'b'.repeat(32), 'micro', 'c'.repeat(32)];
+    for (let n = 0; n < 1500; n++) {
+      const text = Array.from({ length: Math.floor(next() * 120) }, () => plain[Math.floor(next() * plain.length)])
+        .join([' ', ', ', '–', '.', ' – '][Math.floor(next() * 5)]);
+      const terms = new Set(Array.from({ length: 1 + Math.floor(next() * 3) }, () => plainTerms[Math.floor(next() * plainTerms.length)]));
+      const max = next() < 0.7 ? SNIPPET_CHARS : undefined;
+      expect(highlightSegments(text, terms, max), JSON.stringify({ text, terms: [...terms], max })).toEqual(reference(text, terms, max));
+    }
   });
 });
