@@ -69,18 +69,23 @@ export class SlotTable {
     this.free.push(slot);
   }
 
+  /**
+   * Keeps the version's card fields. Lists and the group object are frozen: equal ones are shared between versions
+   * and handed out as they are by toSearchDoc, so a caller that tried to change one would throw instead of altering
+   * other versions' cards.
+   */
   store(slot: number, doc: SearchDoc): void {
     const s = (v: string) => this.intern(v);
     let group = this.groups.get(doc.group.slug);
-    if (!group || group.name !== doc.group.name) this.groups.set(doc.group.slug, (group = { slug: s(doc.group.slug), name: s(doc.group.name) }));
+    if (!group || group.name !== doc.group.name) this.groups.set(doc.group.slug, (group = Object.freeze({ slug: s(doc.group.slug), name: s(doc.group.name) })));
     this.text.set(slot, [doc.title, doc.description, doc.doi, doc.datasetId]);
     this.docs[slot] = {
       versionId: doc.versionId,
       versionNumber: doc.versionNumber,
-      keywords: doc.keywords.map(s),
+      keywords: Object.freeze(doc.keywords.map(s)) as string[],
       material: s(doc.material),
       formula: s(doc.formula),
-      creators: doc.creators.map(s),
+      creators: Object.freeze(doc.creators.map(s)) as string[],
       group,
       quantities: this.internList(doc.quantities),
       methods: this.internList(doc.methods),
@@ -125,15 +130,14 @@ export class SlotTable {
     return (slot) => stamp[slot] === gen;
   }
 
-  /** The stored version as a SearchDoc, with its own copies of the lists (stored lists may be shared). */
+  /** The stored version as a SearchDoc. Its lists and group are the stored ones, shared and frozen (see store()). */
   toSearchDoc(slot: number, ranges: SearchDoc['ranges'], sparkline: [number, number][] | undefined): SearchDoc {
     const d = this.docs[slot] as StoredDoc;
     const doc: SearchDoc = {
       versionId: d.versionId, datasetId: this.text.get(slot, DATASET), versionNumber: d.versionNumber,
       isLatest: this.latest[slot] === 1, title: this.title(slot), description: this.description(slot),
-      keywords: d.keywords.slice(), material: d.material, formula: d.formula,
-      creators: d.creators.slice(), group: { slug: d.group.slug, name: d.group.name }, quantities: d.quantities.slice(),
-      methods: d.methods.slice(), excitation: d.excitation,
+      keywords: d.keywords, material: d.material, formula: d.formula,
+      creators: d.creators, group: d.group, quantities: d.quantities, methods: d.methods, excitation: d.excitation,
       year: d.year, publishedAt: new Date(this.dateMs[slot]).toISOString(), embargoed: d.embargoed,
       doi: this.text.getOrNull(slot, DOI), ranges,
     };
@@ -155,7 +159,7 @@ export class SlotTable {
     const key = values.join('\u0001');
     const known = this.lists.get(key);
     if (known) return known;
-    const list = values.map((v) => this.intern(v));
+    const list = Object.freeze(values.map((v) => this.intern(v))) as string[];
     this.lists.set(key, list);
     return list;
   }

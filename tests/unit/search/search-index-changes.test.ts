@@ -34,11 +34,12 @@ describe('add, update, remove', () => {
     expect(small.get('a1')?.doi).toBe('10.99999/ohm.a1');
   });
 
-  it('hands out copies: changing a returned doc does not change the index', () => {
+  it('hands out its stored lists frozen: changing a returned doc throws and does not change the index', () => {
     const doc = index.get('a1') as SearchDoc;
-    doc.methods.push('two-wire');
-    doc.group.slug = 'elsewhere';
-    doc.keywords.length = 0;
+    expect(() => doc.methods.push('two-wire')).toThrow(TypeError);
+    expect(() => (doc.group.slug = 'elsewhere')).toThrow(TypeError);
+    expect(() => (doc.keywords.length = 0)).toThrow(TypeError);
+    expect(() => doc.creators.unshift('A. Nother')).toThrow(TypeError);
     expect(index.get('a1')).toMatchObject({ methods: ['four-wire'], group: { slug: 'larkspur-cryogenic' }, keywords: byId('a1').keywords });
     expect(index.get('a2')?.methods).toEqual(['four-wire']); // shares the stored list with a1
   });
