@@ -208,6 +208,8 @@ export class TextMatcher {
     this.length = length;
   }
 
+  // Without a branch: whether a posting's slot is still in the running changes at random from one posting to the next,
+  // and the mispredicted branch cost more than writing every posting's mark and score back (≈ 10 % of a two-term query).
   private nextArray(ids: number[], t: number, gain: number): void {
     const { mark, score } = this;
     const before = (this.gen << 4) | t; // has terms 0 … t − 1
@@ -215,10 +217,9 @@ export class TextMatcher {
     for (let r = 0; r < ids.length; r++) {
       const s = ids[r];
       const m = mark[s];
-      if (m === before) {
-        mark[s] = after;
-        score[s] += gain;
-      } else if (m === after) score[s] += gain;
+      const running = +((m - before) >>> 0 < 2); // m is before or after
+      mark[s] = m + running * (after - m);
+      score[s] += running * gain;
     }
   }
 }
