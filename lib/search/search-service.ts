@@ -20,7 +20,13 @@ type State = {
   caughtUpAt: number; localSeen: number;
 };
 
-const holder = globalThis as unknown as { ohmsteadSearch?: Promise<State>; ohmsteadSearchCatchUp?: Promise<void> };
+const holder = globalThis as unknown as {
+  ohmsteadSearch?: Promise<State>; ohmsteadSearchCatchUp?: Promise<void>;
+  /** The built state once the build has finished (read by searchIndexHealth, which must not wait for it). */
+  ohmsteadSearchReady?: State;
+  /** Why the last build failed, until one succeeds. */
+  ohmsteadSearchFailure?: string;
+};
 
 function docsOf(sources: PublishedVersionSource[]) {
   const docs = [];
@@ -90,10 +96,18 @@ function mayBeBehind(state: State): boolean {
 }
 
 async function current(): Promise<State> {
-  holder.ohmsteadSearch ??= build().catch((error: unknown) => {
-    holder.ohmsteadSearch = undefined; // try again on the next request
-    throw error;
-  });
+  holder.ohmsteadSearch ??= build().then(
+    (state) => {
+      holder.ohmsteadSearchReady = state;
+      holder.ohmsteadSearchFailure = undefined;
+      return state;
+    },
+    (error: unknown) => {
+      holder.ohmsteadSearch = undefined; // try again on the next request
+      holder.ohmsteadSearchFailure = error instanceof Error ? error.message : String(error);
+      throw error;
+    },
+  );
   const state = await holder.ohmsteadSearch;
   if (!mayBeBehind(state)) return state;
   // One catch-up at a time per instance; concurrent requests wait for it rather than each re-reading the log. One that
@@ -130,6 +144,31 @@ export function warmSearchIndex(): void {
 /** Drops this instance's index (tests; `npm run reindex` asks every instance through the log instead). */
 export function forgetSearchIndex(): void {
   holder.ohmsteadSearch = undefined;
+  holder.ohmsteadSearchReady = undefined;
+  holder.ohmsteadSearchFailure = undefined;
+}
+
+export type SearchIndexHealth =
+  | { state: 'not-started' | 'building' }
+  | { state: 'failed'; detail: string }
+  | { state: 'ready'; versions: number; cursor: number; builtAt: string; caughtUpSecondsAgo: number };
+
+/**
+ * This instance's index as it stands, without building it or waiting for a build (for /api/health: at 100k versions
+ * a build takes seconds). 'ready' gives the indexed versions, the last outbox entry applied and how long ago the log
+ * was last read (a search reads it at most once a second; an idle instance catches up on its next search).
+ */
+export function searchIndexHealth(): SearchIndexHealth {
+  const ready = holder.ohmsteadSearchReady;
+  if (ready && holder.ohmsteadSearch) {
+    return {
+      state: 'ready', versions: ready.index.size, cursor: ready.cursor, builtAt: ready.builtAt.toISOString(),
+      caughtUpSecondsAgo: Math.round((performance.now() - ready.caughtUpAt) / 100) / 10,
+    };
+  }
+  if (holder.ohmsteadSearch) return { state: 'building' };
+  if (holder.ohmsteadSearchFailure) return { state: 'failed', detail: holder.ohmsteadSearchFailure };
+  return { state: 'not-started' };
 }
 
 export async function searchIndexStatus(): Promise<{ versions: number; cursor: number; builtAt: string }> {

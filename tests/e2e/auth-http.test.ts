@@ -57,12 +57,13 @@ describe('sign-in over HTTP (next-auth credentials and e-mail providers)', () =>
 describe('health', () => {
   it('reports every service up', async () => {
     const response = await fetch(new URL('/api/health', baseUrl));
-    const body = (await response.json()) as { status: string; services: { name: string; ok: boolean }[] };
+    const body = (await response.json()) as { status: string; services: { name: string; ok: boolean }[]; search: { state: string } };
     expect(response.status).toBe(200);
     expect(body.status).toBe('ok');
     expect(body.services.map((s) => [s.name, s.ok])).toEqual([
       ['database', true], ['object-storage', true], ['smtp', true], ['doi-registration', true],
     ]);
+    expect(['building', 'ready']).toContain(body.search.state); // the server starts building it as it starts
   });
 
   it('answers the liveness probe without touching any service, with the security headers', async () => {

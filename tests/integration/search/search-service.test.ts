@@ -6,7 +6,7 @@ import { createNewVersion } from '@/lib/publishing/create-new-version';
 import { publishVersion } from '@/lib/publishing/publish-version';
 import { withdrawVersion } from '@/lib/publishing/withdraw-version';
 import { SEARCH_CHANGED_TOPIC } from '@/lib/search/repo';
-import { CATCH_UP_INTERVAL_MS, forgetSearchIndex, searchIndexStatus, searchPublished } from '@/lib/search/search-service';
+import { CATCH_UP_INTERVAL_MS, forgetSearchIndex, searchIndexHealth, searchIndexStatus, searchPublished } from '@/lib/search/search-service';
 import { closeDb, makeDraft, makePubLab, removePubLab, type PubLab } from '../publishing/fixtures';
 
 let lab: PubLab;
@@ -26,6 +26,18 @@ const titles = async (q: string, extra: Record<string, unknown> = {}) =>
   (await searchPublished({ q, group: [lab.slug], ...extra })).hits.map((h) => [h.doc.title, h.doc.versionNumber]);
 
 describe('search index kept current from the outbox', () => {
+  it('tells /api/health how the index stands without building it or waiting for it', async () => {
+    forgetSearchIndex();
+    expect(searchIndexHealth()).toEqual({ state: 'not-started' });
+    const status = searchIndexStatus(); // the first search (or the server's start) begins the build
+    expect(searchIndexHealth()).toEqual({ state: 'building' });
+    const built = await status;
+    expect(searchIndexHealth()).toMatchObject({ state: 'ready', versions: built.versions, cursor: built.cursor, builtAt: built.builtAt });
+    const { caughtUpSecondsAgo } = searchIndexHealth() as { caughtUpSecondsAgo: number };
+    expect(caughtUpSecondsAgo).toBeGreaterThanOrEqual(0);
+    expect(caughtUpSecondsAgo).toBeLessThan(60);
+  });
+
   it('finds a version once published, follows a new version, and drops a withdrawn one', async () => {
     forgetSearchIndex();
     await searchIndexStatus(); // built before the publication: the change must arrive through the log
