@@ -11,8 +11,13 @@ import { RangeColumns } from './ranges';
 import { ResultPages } from './result-pages';
 import { SparklineStore } from './sparkline-store';
 import { SlotTable, type StoredDoc } from './slot-table';
-import { TextMatcher } from './text-match';
+import type { VersionText } from './key-numbering';
+import type { KeyNumberer, NumberedBatch } from './key-worker';
+import { fieldsAt, TextMatcher, versionText } from './text-match';
 import { type SearchDoc, type SearchHit, type SearchQuery, type SearchResult } from './types';
+
+// Versions per batch in addAll: the worker numbers one batch while this thread indexes the one before.
+const ADD_CHUNK = 400;
 
 export class SearchIndex {
   private readonly table = new SlotTable();
@@ -68,6 +73,72 @@ export class SearchIndex {
     if (this.table.capacity > this.buffer.length) this.growTo(this.table.capacity);
     this.indexColumns(slot, doc, keysOfMaterial);
     this.text.add(slot, doc, keysOfMaterial);
+  }
+
+  /**
+   * Adds many versions (a rebuild), with the same result as add() for each in turn; query the index once it resolves.
+   * With `keyer` (key-worker.ts) each version's columns are filled at once and its text sent to the worker, which
+   * numbers the keys of one batch of ADD_CHUNK while this thread fills the columns of the next; the keys go into
+   * FlexSearch as their batch comes back. Only slot numbers wait, so docs die young. Without a worker, or once it
+   * fails, the rest are added one by one here.
+   */
+  async addAll(docs: Iterable<SearchDoc>, keyer?: KeyNumberer | null): Promise<void> {
+    const keyOf: string[] = []; // the worker's key numbers, one string object per key (text-match.ts says why)
+    const waiting: { slots: number[]; numbered: Promise<NumberedBatch> | null }[] = [];
+    let batch: { slots: number[]; texts: VersionText[] } = { slots: [], texts: [] };
+    // Indexes the text of the oldest batch sent, from the worker's numbers or, if it failed, on this thread from the
+    // stored versions.
+    const indexOldest = async () => {
+      const { slots, numbered } = waiting.shift()!;
+      const result = numbered && (await numbered.catch(() => null));
+      if (!result) {
+        keyer = null;
+        for (const slot of slots) {
+          const doc = this.toSearchDoc(slot);
+          this.text.add(slot, doc, materialKeys(doc.material, doc.formula));
+        }
+        return;
+      }
+      for (const key of result.keys) keyOf.push(key);
+      let at = 0;
+      for (const slot of slots) {
+        const { fields, next } = fieldsAt(result.ids, at, (id) => keyOf[id]);
+        this.text.addKeys(slot, fields);
+        at = next;
+      }
+    };
+    const send = () => {
+      if (!batch.slots.length) return;
+      const numbered = keyer ? keyer.number(batch.texts) : null; // the worker gets a copy: the texts die young here
+      numbered?.catch(() => undefined); // a failure is handled where the batch is indexed
+      waiting.push({ slots: batch.slots, numbered });
+      batch = { slots: [], texts: [] };
+    };
+    for (const doc of docs) {
+      if (!keyer && !waiting.length && !batch.slots.length) {
+        this.add(doc);
+        continue;
+      }
+      if (this.table.slotOf(doc.versionId) !== undefined) {
+        // A replacement, or a version given twice: every text sent before it goes in first, then the usual way.
+        send();
+        while (waiting.length) await indexOldest();
+        this.add(doc);
+        continue;
+      }
+      const keysOfMaterial = materialKeys(doc.material, doc.formula);
+      const slot = this.table.allocate();
+      if (this.table.capacity > this.buffer.length) this.growTo(this.table.capacity);
+      this.indexColumns(slot, doc, keysOfMaterial);
+      batch.slots.push(slot);
+      batch.texts.push(versionText(doc, keysOfMaterial));
+      if (batch.slots.length === ADD_CHUNK) {
+        send();
+        if (waiting.length > 1) await indexOldest(); // one batch stays with the worker while the next fills
+      }
+    }
+    send();
+    while (waiting.length) await indexOldest();
   }
 
   /** Same as add: the outbox says "this version changed", whatever changed. */

@@ -1,6 +1,7 @@
 import 'server-only';
 import { log } from '@/lib/log';
 import { buildSearchDoc, type PublishedVersionSource } from './build-search-doc';
+import { startKeyWorker } from './key-worker';
 import { latestSearchChangeId, loadPublishedSources, searchChangesSince } from './repo';
 import { localSearchChanges } from './search-changed';
 import { SearchIndex } from './search-index';
@@ -49,13 +50,25 @@ async function build(): Promise<State> {
   const state: State = {
     index: new SearchIndex({ capacity: sources.length }), cursor, builtAt: new Date(), byDataset: new Map(), caughtUpAt: startedAt, localSeen,
   };
-  for (const doc of docsOf(sources)) addDoc(state, doc);
-  log('info', 'search: index built', { versions: state.index.size, ms: Date.now() - started });
+  const docs = docsOf(sources);
+  // Keys are numbered on a worker thread while this one fills the index (both cores); without one, all on this thread.
+  const keyer = startKeyWorker();
+  try {
+    await state.index.addAll(docs, keyer);
+  } finally {
+    keyer?.stop();
+  }
+  for (const doc of docs) noteDataset(state, doc);
+  log('info', 'search: index built', { versions: state.index.size, ms: Date.now() - started, keyWorker: keyer !== null });
   return state;
 }
 
 function addDoc(state: State, doc: SearchDoc): void {
   state.index.add(doc);
+  noteDataset(state, doc);
+}
+
+function noteDataset(state: State, doc: SearchDoc): void {
   const set = state.byDataset.get(doc.datasetId) ?? new Set<string>();
   set.add(doc.versionId);
   state.byDataset.set(doc.datasetId, set);

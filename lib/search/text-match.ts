@@ -2,6 +2,7 @@
 // with field-weighted scores. FlexSearch only answers "which slots contain this key in this field".
 import { Index } from 'flexsearch';
 import { elementKeys } from './normalise-formula';
+import { makeKeyNumbering, type VersionText } from './key-numbering';
 import { addKeys, spaceKeys } from './tokenise';
 import type { SearchDoc } from './types';
 
@@ -23,84 +24,55 @@ type TextField = (typeof FIELDS)[number]['field'];
 /** The keys of one version per field, in order (each key in one field only): what FlexSearch indexes. */
 export type TextFields = { title: string[]; head: string[]; body: string[] };
 
-// One copy of every key ever indexed, with a number. FlexSearch files each posting under its key in a plain object and
-// a Map: handing it the same string object every time (already hashed, already known to the engine) makes adding ~40 %
-// cheaper than fresh strings from the tokeniser, and the numbers let a version's keys be de-duplicated with a stamp
-// array instead of a Set per version. A speed aid only: forgetting it changes no result (see remember()).
+// One copy of every key ever indexed, with a number (key-numbering.ts). FlexSearch files each posting under its key in
+// a plain object and a Map: handing it the same string object every time (already hashed, already known to the engine)
+// makes adding ~40 % cheaper than fresh strings from the tokeniser. A speed aid only: starting afresh changes no result.
 const VOCABULARY_LIMIT = 4_000_000;
 
+/** The text of a version as key-numbering.ts reads it (keysOfMaterial: formula keys and aliases, normalise-formula.ts). */
+export function versionText(doc: SearchDoc, keysOfMaterial: readonly string[]): VersionText {
+  // Quantities, methods, excitation and group are matched through the facet dictionaries instead (facet-words.ts).
+  return {
+    title: doc.title,
+    preKeyed: [...keysOfMaterial, ...elementKeys(doc.formula)],
+    texts: [doc.material, ...doc.keywords, ...doc.creators],
+    body: doc.description,
+  };
+}
+
+/** The fields at `ids[at]` onwards as numbered by KeyNumbering.number, as keys; returns them and where the next begin. */
+export function fieldsAt(ids: ArrayLike<number>, at: number, keyOf: (id: number) => string): { fields: TextFields; next: number } {
+  const field = (): string[] => {
+    const n = ids[at++];
+    const keys = new Array<string>(n);
+    for (let i = 0; i < n; i++) keys[i] = keyOf(ids[at++]);
+    return keys;
+  };
+  const title = field();
+  const head = field();
+  const body = field();
+  return { fields: { title, head, body }, next: at };
+}
+
 export class FieldKeys {
-  private readonly ids = new Map<string, number>();
-  private readonly keys: string[] = [];
-  private stamp = new Uint32Array(1024);
-  private generation = 0;
+  private numbering = makeKeyNumbering(addKeys);
+  private readonly ids: number[] = [];
 
   /**
-   * The keys FlexSearch indexes for one version (keys from tokenise.ts). A key is indexed once, in the first field
-   * that has it (title, then head, then body): the version is found all the same and scores that field's weight, with
-   * fewer postings to build and keep (a fifth fewer in the benchmark corpus).
+   * The keys FlexSearch indexes for one version (keys from tokenise.ts), each in the first field that has it: title,
+   * then head (formula keys, elements, material name, keywords, creators: FlexSearch's position score ranks a formula
+   * above an element it contains), then body (the description).
    */
   fields(doc: SearchDoc, keysOfMaterial: readonly string[]): TextFields {
-    if (++this.generation === 0xffffffff || this.ids.size > VOCABULARY_LIMIT) this.forget();
-    const title: string[] = [];
-    this.addText(doc.title, title);
-    // Quantities, methods, excitation and group are matched through the facet dictionaries instead (facet-words.ts).
-    const head: string[] = [];
-    for (const key of keysOfMaterial) this.addKey(key, head);
-    for (const key of elementKeys(doc.formula)) this.addKey(key, head);
-    this.addText(doc.material, head);
-    for (const keyword of doc.keywords) this.addText(keyword, head);
-    for (const creator of doc.creators) this.addText(creator, head);
-    const body: string[] = [];
-    this.addText(doc.description, body);
-    return { title, head, body };
+    if (this.numbering.size() > VOCABULARY_LIMIT) this.numbering = makeKeyNumbering(addKeys);
+    this.ids.length = 0;
+    this.numbering.number(versionText(doc, keysOfMaterial), this.ids);
+    return fieldsAt(this.ids, 0, this.numbering.keyOf).fields;
   }
 
   /** Number of distinct keys remembered. */
   get size(): number {
-    return this.ids.size;
-  }
-
-  // Appends the keys of `text` to `out` in place, then replaces each by its kept copy, dropping the ones already seen.
-  private addText(text: string, out: string[]): void {
-    const start = out.length;
-    addKeys(text, out);
-    let kept = start;
-    for (let i = start; i < out.length; i++) {
-      const key = this.remember(out[i]);
-      if (key !== null) out[kept++] = key;
-    }
-    out.length = kept;
-  }
-
-  private addKey(key: string, out: string[]): void {
-    const kept = this.remember(key);
-    if (kept !== null) out.push(kept);
-  }
-
-  // The kept copy of `key`, or null when this version already has it.
-  private remember(key: string): string | null {
-    let id = this.ids.get(key);
-    if (id === undefined) {
-      id = this.keys.length;
-      this.ids.set(key, id);
-      this.keys.push(key);
-      if (id >= this.stamp.length) {
-        const stamp = new Uint32Array(this.stamp.length * 2);
-        stamp.set(this.stamp);
-        this.stamp = stamp;
-      }
-    }
-    if (this.stamp[id] === this.generation) return null;
-    this.stamp[id] = this.generation;
-    return this.keys[id];
-  }
-
-  private forget(): void {
-    this.ids.clear();
-    this.keys.length = 0;
-    this.stamp = new Uint32Array(1024);
-    this.generation = 1;
+    return this.numbering.size();
   }
 }
 
@@ -139,7 +111,11 @@ export class TextMatcher {
 
   /** Indexes the version's text (keysOfMaterial: formula keys and aliases, normalise-formula.ts). */
   add(slot: number, doc: SearchDoc, keysOfMaterial: readonly string[]): void {
-    const fields = this.keys.fields(doc, keysOfMaterial);
+    this.addKeys(slot, this.keys.fields(doc, keysOfMaterial));
+  }
+
+  /** Indexes a slot's keys, numbered elsewhere (SearchIndex.addAll): add() without the keying. */
+  addKeys(slot: number, fields: TextFields): void {
     for (const { field } of FIELDS) addKeyed(this.indexes[field], slot, fields[field]);
   }
 
