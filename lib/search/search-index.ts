@@ -80,9 +80,10 @@ export class SearchIndex {
    * With `keyer` (key-worker.ts) each version's columns are filled at once and its text sent to the worker, which
    * numbers the keys of one batch of ADD_CHUNK while this thread fills the columns of the next; the keys go into
    * FlexSearch as their batch comes back. Only slot numbers wait, so docs die young. Without a worker, or once it
-   * fails, the rest are added one by one here.
+   * fails, the rest are added one by one here. Returns how many versions the worker keyed.
    */
-  async addAll(docs: Iterable<SearchDoc>, keyer?: KeyNumberer | null): Promise<void> {
+  async addAll(docs: Iterable<SearchDoc>, keyer?: KeyNumberer | null): Promise<{ keyedByWorker: number }> {
+    let keyedByWorker = 0;
     const keyOf: string[] = []; // the worker's key numbers, one string object per key (text-match.ts says why)
     const waiting: { slots: number[]; numbered: Promise<NumberedBatch> | null }[] = [];
     let batch: { slots: number[]; texts: VersionText[] } = { slots: [], texts: [] };
@@ -100,6 +101,7 @@ export class SearchIndex {
         return;
       }
       for (const key of result.keys) keyOf.push(key);
+      keyedByWorker += slots.length;
       let at = 0;
       for (const slot of slots) {
         const { fields, next } = fieldsAt(result.ids, at, (id) => keyOf[id]);
@@ -139,6 +141,7 @@ export class SearchIndex {
     }
     send();
     while (waiting.length) await indexOldest();
+    return { keyedByWorker };
   }
 
   /** Same as add: the outbox says "this version changed", whatever changed. */

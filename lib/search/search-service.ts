@@ -53,13 +53,14 @@ async function build(): Promise<State> {
   const docs = docsOf(sources);
   // Keys are numbered on a worker thread while this one fills the index (both cores); without one, all on this thread.
   const keyer = startKeyWorker();
+  let keyedByWorker = 0;
   try {
-    await state.index.addAll(docs, keyer);
+    ({ keyedByWorker } = await state.index.addAll(docs, keyer));
   } finally {
     keyer?.stop();
   }
   for (const doc of docs) noteDataset(state, doc);
-  log('info', 'search: index built', { versions: state.index.size, ms: Date.now() - started, keyWorker: keyer !== null });
+  log('info', 'search: index built', { versions: state.index.size, ms: Date.now() - started, keyedByWorker });
   return state;
 }
 

@@ -72,7 +72,8 @@ describe('SearchIndex.addAll', () => {
     keyer = startKeyWorker();
     expect(keyer).not.toBeNull();
     const all = new SearchIndex({ capacity: 16 }); // and grows while adding
-    await all.addAll(docs, keyer);
+    const { keyedByWorker } = await all.addAll(docs, keyer);
+    expect(keyedByWorker).toBeGreaterThan(1000); // all but the replacements and duplicates
     expect(answers(all, docs)).toEqual(answers(oneByOne(docs), docs));
     expect(all.get('a1')?.title).toBe('Copper wire, corrected');
     expect(all.get(docs.find((d) => d.description === 'corrected once')!.versionId)?.description).toBe('corrected once');
@@ -89,8 +90,9 @@ describe('SearchIndex.addAll', () => {
       stop: () => worker?.stop(),
     };
     const afterFailure = new SearchIndex();
-    await afterFailure.addAll(docs, failing);
+    const { keyedByWorker } = await afterFailure.addAll(docs, failing);
     expect(batches).toBeGreaterThanOrEqual(2);
+    expect(keyedByWorker).toBe(404); // the batch sent before (4 versions) and the one already sent after (400)
     const expected = answers(oneByOne(docs), docs);
     expect(answers(afterFailure, docs)).toEqual(expected);
 
