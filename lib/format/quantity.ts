@@ -111,13 +111,18 @@ export function formatQuantity(value: number, ucum: string, digits = 3): string 
   return alternative ? `${text} (${alternative})` : text;
 }
 
-/** A range of one quantity: '2–300 K', '255 µΩ – 44 mΩ' (units shared when both ends print with the same one). */
+/**
+ * A range of one quantity: '2–300 K', '255 µΩ – 44 mΩ' (units shared when both ends print with the same one). With a
+ * negative end the ends are joined by 'to' ('−1 to 1 T'), as is common practice: an en dash next to a minus sign reads
+ * as arithmetic ('−1–1 T').
+ */
 export function formatRange(min: number, max: number, ucum: string): string {
   if (min === max) return formatQuantityParts(min, ucum).text; // a fixed value ("0 T"), not a range of one point
   const a = formatQuantityParts(min, ucum).text;
   const b = formatQuantityParts(max, ucum).text;
   const unitA = a.split(' ').slice(1).join(' ');
   const unitB = b.split(' ').slice(1).join(' ');
-  if (unitA && unitA === unitB) return `${a.split(' ')[0]}–${b}`;
-  return `${a} – ${b}`;
+  const signed = min < 0 || max < 0;
+  if (unitA && unitA === unitB) return signed ? `${a.split(' ')[0]} to ${b}` : `${a.split(' ')[0]}–${b}`;
+  return signed ? `${a} to ${b}` : `${a} – ${b}`;
 }

@@ -60,6 +60,10 @@ describe('formatQuantity (product design, "Numbers")', () => {
     expect(formatRange(0, 0, 'T')).toBe('0 T'); // a field held at zero reads as one value
     expect(formatRange(13.7, 13.7, 'Hz')).toBe('13.7 Hz');
     expect(formatRange(0.000254648, 0.04395924, 'Ohm')).toBe('255 µΩ – 44 mΩ');
+    // A negative end: 'to' instead of a dash beside the minus sign (common practice).
+    expect(formatRange(-1, 1, 'T')).toBe('\u22121 to 1 T');
+    expect(formatRange(-9, -2, 'T')).toBe('\u22129 to \u22122 T');
+    expect(formatRange(-0.002, 2, 'Ohm')).toBe('\u22122 mΩ to 2 Ω');
   });
 });
 

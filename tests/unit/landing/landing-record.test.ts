@@ -31,7 +31,7 @@ describe('readLandingRecord', () => {
     ]);
     // −9 T to 9 T: the minus sign is typeset (U+2212), the unit shared.
     expect(r.environment).toEqual([
-      { label: 'Field', value: '\u22129–9 T' }, { label: 'Field orientation', value: 'in plane, parallel to the current' },
+      { label: 'Field', value: '\u22129 to 9 T' }, { label: 'Field orientation', value: 'in plane, parallel to the current' },
       { label: 'Angle', value: '45°' },
     ]);
     expect(r.license).toEqual({ id: 'CC0-1.0', name: 'Creative Commons Zero v1.0 Universal', url: 'https://spdx.org/licenses/CC0-1.0.html' });
