@@ -26,7 +26,7 @@ export function highlightSegments(
 ): HighlightSegment[] | undefined {
   if (!text || terms.size === 0) return undefined;
   const matched = PlainText.match(text, terms) ?? ScannedText.match(text, terms);
-  if (!matched || matched.starts.length === 0) return undefined;
+  if (matched.starts.length === 0) return undefined;
   const { starts, ends } = matched;
 
   let from = 0;
@@ -68,6 +68,7 @@ function push(segments: HighlightSegment[], part: string, match: boolean): void 
 }
 
 // --- the general way: every word of the text, keyed by the tokeniser ----------------------------------------------
+// For what the quick way below declines: text with other non-ASCII letters or digits, or a term with a digit.
 
 class ScannedText implements Matched {
   readonly starts: number[] = [];
@@ -81,8 +82,7 @@ class ScannedText implements Matched {
     }
   }
 
-  static match(text: string, terms: ReadonlySet<string>): ScannedText | null {
-    if (cannotMatch(text, terms)) return null;
+  static match(text: string, terms: ReadonlySet<string>): ScannedText {
     // Words as parallel arrays (keys, starts, ends): the text is scanned once, without an object per word, and only
     // words that could have a term's length are keyed.
     return new ScannedText(tokenArrays(text, new Set([...terms].map((term) => term.length))), terms);
@@ -100,17 +100,6 @@ class ScannedText implements Matched {
   }
 }
 
-const DIGIT = /\d/;
-
-// Cheap exact pre-check for ASCII text: a key without digits can only be a word of the text if it is a substring of the
-// lower-cased text (keys with digits may come from "4.2" → 42, so they always take the full path).
-function cannotMatch(text: string, terms: ReadonlySet<string>): boolean {
-  if (NON_ASCII.test(text)) return false;
-  const lower = text.toLowerCase();
-  for (const term of terms) if (DIGIT.test(term) || lower.includes(term)) return false;
-  return true;
-}
-
 // --- the quick way: find each term in the lower-cased text, then check the word it starts -------------------------
 // Exact for the texts most cards carry: terms without digits, and text whose only non-ASCII characters are
 // separators (–, °, ·) or sub- and superscript digits. There a word is a run of [a-z0-9] (or those digits) joined
@@ -118,6 +107,7 @@ function cannotMatch(text: string, terms: ReadonlySet<string>): boolean {
 // (cut to MAX_TERM_CHARS, less a plural -s): so it starts where the word starts, and indexOf finds every candidate.
 
 const NON_ASCII = /[^\x00-\x7f]/;
+const DIGIT = /\d/;
 const WORD_CHAR = /^[\p{L}\p{N}\p{M}]$/u;
 const isScriptDigit = (c: number) => c === 0xb2 || c === 0xb3 || c === 0xb9 || c === 0x2070 || (c >= 0x2074 && c <= 0x2079) || (c >= 0x2080 && c <= 0x2089);
 const isDigitCode = (c: number) => (c >= 48 && c <= 57) || isScriptDigit(c);
