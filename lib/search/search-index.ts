@@ -69,10 +69,16 @@ export class SearchIndex {
       if (!sameText) this.text.add(existing, doc, keysOfMaterial);
       return;
     }
+    const slot = this.columnsOfNew(doc, keysOfMaterial);
+    this.text.add(slot, doc, keysOfMaterial);
+  }
+
+  // A slot for a version not indexed yet (the columns grown if full), with its columns filled; its text is the caller's.
+  private columnsOfNew(doc: SearchDoc, keysOfMaterial: readonly string[]): number {
     const slot = this.table.allocate();
     if (this.table.capacity > this.buffer.length) this.growTo(this.table.capacity);
     this.indexColumns(slot, doc, keysOfMaterial);
-    this.text.add(slot, doc, keysOfMaterial);
+    return slot;
   }
 
   /**
@@ -129,9 +135,7 @@ export class SearchIndex {
         continue;
       }
       const keysOfMaterial = materialKeys(doc.material, doc.formula);
-      const slot = this.table.allocate();
-      if (this.table.capacity > this.buffer.length) this.growTo(this.table.capacity);
-      this.indexColumns(slot, doc, keysOfMaterial);
+      const slot = this.columnsOfNew(doc, keysOfMaterial);
       batch.slots.push(slot);
       batch.texts.push(versionText(doc, keysOfMaterial));
       if (batch.slots.length === ADD_CHUNK) {
